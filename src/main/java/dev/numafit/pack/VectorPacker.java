@@ -231,6 +231,13 @@ public final class VectorPacker {
         }
       }
       if (bestBins > lowerBound && steps < budget) {
+        int[] candidate = minimumBinSlack(order(sumNormKeys()), lowerBound);
+        if (candidate != null && binsOf(candidate) < bestBins) {
+          best = candidate;
+          bestBins = binsOf(candidate);
+        }
+      }
+      if (bestBins > lowerBound && steps < budget) {
         Improver improver = new Improver(in, best, sumNormItemKeys());
         best = improver.run(lowerBound);
       }
@@ -389,6 +396,147 @@ public final class VectorPacker {
         }
       }
       return binOfItem;
+    }
+
+    // --- minimum bin slack ------------------------------------------------------------------
+
+    private int[] mbsRemaining;
+    private int[] mbsOrder;
+    private long[] mbsRes;
+    private int[] mbsStack;
+    private int mbsDepth;
+    private int[] mbsBest;
+    private int mbsBestDepth;
+    private double mbsBestSlack;
+    private long mbsLocalSteps;
+    private long mbsLimit;
+
+    /**
+     * Fills one bin at a time with the subset of the remaining items that leaves the least
+     * normalised slack, the largest remaining item always included: MBS' after Gupta and Ho, "A
+     * new heuristic algorithm for the one-dimensional bin-packing problem" (1999), and Fleszar and
+     * Hindi, "New heuristics for one-dimensional bin-packing" (2002). The subset search per bin is
+     * cut off after a share of the remaining step budget, so it degrades to a greedy fill on large
+     * inputs. Returns null when the budget runs out.
+     */
+    private int[] minimumBinSlack(int[] order, int lowerBound) {
+      int d = in.d;
+      mbsOrder = order;
+      mbsRemaining = in.count.clone();
+      mbsRes = new long[d];
+      mbsStack = new int[16];
+      mbsBest = new int[16];
+      int[] binOfItem = new int[in.n];
+      int[] nextMember = new int[in.types];
+      int left = in.n;
+      int bin = 0;
+      int first = 0;
+      while (left > 0) {
+        if (steps >= budget) {
+          return null;
+        }
+        while (mbsRemaining[order[first]] == 0) {
+          first++;
+        }
+        long share = (budget - steps) / Math.max(1, lowerBound - bin);
+        mbsLimit = Math.max(in.types, Math.min(share, 200_000L));
+        mbsLocalSteps = 0;
+        System.arraycopy(in.cap, 0, mbsRes, 0, d);
+        mbsDepth = 0;
+        take(first);
+        mbsBestDepth = 0;
+        mbsBestSlack = Double.MAX_VALUE;
+        record();
+        search(first);
+        for (int i = 0; i < mbsDepth; i++) {
+          untakeCount(mbsStack[i]);
+        }
+        for (int i = 0; i < mbsBestDepth; i++) {
+          int t = order[mbsBest[i]];
+          mbsRemaining[t]--;
+          binOfItem[in.members[t][nextMember[t]++]] = bin;
+          left--;
+        }
+        bin++;
+      }
+      return binOfItem;
+    }
+
+    /** Returns true when a bin with no slack at all was found: nothing can beat it. */
+    private boolean search(int from) {
+      for (int j = from; j < mbsOrder.length; j++) {
+        int t = mbsOrder[j];
+        if (mbsRemaining[t] == 0) {
+          continue;
+        }
+        steps++;
+        if (++mbsLocalSteps > mbsLimit) {
+          return true;
+        }
+        boolean fits = true;
+        for (int k = 0; k < in.d; k++) {
+          if (in.w(t, k) > mbsRes[k]) {
+            fits = false;
+            break;
+          }
+        }
+        if (!fits) {
+          continue;
+        }
+        take(j);
+        double slack = slack();
+        if (slack < mbsBestSlack) {
+          record();
+        }
+        boolean done = slack == 0 || search(j);
+        untake();
+        if (done) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    private void take(int j) {
+      int t = mbsOrder[j];
+      if (mbsDepth == mbsStack.length) {
+        mbsStack = Arrays.copyOf(mbsStack, mbsDepth * 2);
+      }
+      mbsStack[mbsDepth++] = j;
+      mbsRemaining[t]--;
+      for (int k = 0; k < in.d; k++) {
+        mbsRes[k] -= in.w(t, k);
+      }
+    }
+
+    private void untake() {
+      int j = mbsStack[--mbsDepth];
+      untakeCount(j);
+      int t = mbsOrder[j];
+      for (int k = 0; k < in.d; k++) {
+        mbsRes[k] += in.w(t, k);
+      }
+    }
+
+    private void untakeCount(int j) {
+      mbsRemaining[mbsOrder[j]]++;
+    }
+
+    private double slack() {
+      double s = 0;
+      for (int k = 0; k < in.d; k++) {
+        s += (double) mbsRes[k] / in.cap[k];
+      }
+      return s;
+    }
+
+    private void record() {
+      if (mbsBest.length < mbsDepth) {
+        mbsBest = Arrays.copyOf(mbsBest, mbsStack.length);
+      }
+      System.arraycopy(mbsStack, 0, mbsBest, 0, mbsDepth);
+      mbsBestDepth = mbsDepth;
+      mbsBestSlack = slack();
     }
 
     /** Residual room of open bins, flat, with a skip list past bins that can take nothing more. */
