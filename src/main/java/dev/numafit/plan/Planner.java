@@ -5,7 +5,6 @@ import dev.numafit.demand.Workload;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.fit.OversizeCheck;
 import dev.numafit.fit.SpanningRoom;
-import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
 import dev.numafit.pack.VectorPacker;
 import dev.numafit.resource.Resources;
@@ -39,7 +38,7 @@ import java.util.TreeSet;
  *   <li>Pods that do not fit the room are reported as oversize ({@link OversizeCheck}) and not
  *       packed; resources with no capacity are reported as unchecked.
  *   <li>The rest are packed ({@link VectorPacker}) over every resource that has a capacity; the
- *       {@link LowerBound} says how close the packing is.
+ *       lower bound ({@link dev.numafit.pack.LowerBound}) says how close the packing is.
  *   <li>Hosts = {@code ceil(workers / workersPerHost) + hostFailures}.
  *   <li>Utilization per resource = (packed requests + per-worker demand × workers) / (allocatable
  *       × workers), 4 decimals; the binding resource has the highest.
@@ -159,7 +158,7 @@ public final class Planner {
     long[][] items = rows.toArray(new long[0][]);
     Packing packing = packer.pack(items, capacity);
     int workers = packing.bins();
-    int lowerBound = LowerBound.of(items, capacity);
+    int lowerBound = packing.lowerBound();
 
     OptionalInt hosts =
         in.workersPerHost().isPresent()
