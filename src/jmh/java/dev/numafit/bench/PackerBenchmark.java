@@ -1,8 +1,24 @@
 package dev.numafit.bench;
 
+import dev.numafit.demand.Demand;
+import dev.numafit.demand.EffectivePod;
+import dev.numafit.demand.QosClass;
+import dev.numafit.demand.Replicas;
+import dev.numafit.demand.Workload;
+import dev.numafit.demand.WorkloadId;
+import dev.numafit.diag.SourceRef;
 import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
 import dev.numafit.pack.VectorPacker;
+import dev.numafit.plan.Plan;
+import dev.numafit.plan.PlanInput;
+import dev.numafit.plan.Planner;
+import dev.numafit.resource.Resources;
+import dev.numafit.shape.ShapeKind;
+import dev.numafit.shape.WorkerShape;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.TreeMap;
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
@@ -35,15 +51,41 @@ public class PackerBenchmark {
   static final long[] ROOM = {16_000 - 110, (64L << 30) - 5_884_105_196L - (100L << 20), 110};
 
   long[][] items;
+  Demand demand;
+  PlanInput input;
 
   @Setup
   public void setUp() {
     items = SyntheticFleet.podItems();
+    List<Workload> workloads = new ArrayList<>();
+    for (SyntheticFleet.Deployment d : SyntheticFleet.deployments()) {
+      Resources requests = Resources.of("cpu", d.podCpu(), "memory", d.podMemory());
+      workloads.add(
+          new Workload(
+              new WorkloadId(d.namespace(), "Deployment", d.name()),
+              new SourceRef("workload-150k.yaml", 1),
+              new Replicas(d.replicas(), d.replicas(), "spec.replicas"),
+              new EffectivePod(requests, Resources.EMPTY, QosClass.BURSTABLE, 0, List.of()),
+              false,
+              false,
+              List.of()));
+    }
+    demand = new Demand(workloads, List.of(), new TreeMap<>(), List.of());
+    input =
+        PlanInput.of(
+            new WorkerShape(ShapeKind.EXPLICIT, 1, 1, 16, 64L << 30, Resources.EMPTY),
+            Resources.of("cpu", ROOM[0], "memory", ROOM[1], "pods", ROOM[2]));
   }
 
   @Benchmark
   public Packing pack() {
     return new VectorPacker().pack(items, ROOM);
+  }
+
+  /** The whole planning step: oversize check, packing, lower bound and utilization. */
+  @Benchmark
+  public Plan plan() {
+    return new Planner().plan(demand, input);
   }
 
   @Benchmark

@@ -11,7 +11,6 @@ import dev.numafit.resource.Resources;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalInt;
@@ -66,8 +65,12 @@ public final class Planner {
     Resources allocatable = in.allocatable();
     SortedSet<String> checked = new TreeSet<>(allocatable.names());
 
-    List<Workload> workloads = new ArrayList<>(demand.workloads());
-    workloads.sort(Comparator.comparing(Workload::id));
+    // Sorted by printed id, each id printed once (WorkloadId compares by its printed form).
+    TreeMap<String, Workload> byId = new TreeMap<>();
+    for (Workload w : demand.workloads()) {
+      byId.put(w.id().toString(), w);
+    }
+    List<Workload> workloads = new ArrayList<>(byId.values());
 
     Resources perWorker = in.perWorkerExtra();
     for (Workload w : workloads) {
