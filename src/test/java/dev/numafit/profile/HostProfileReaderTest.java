@@ -152,6 +152,22 @@ class HostProfileReaderTest {
   }
 
   @Test
+  void read_distanceRowNotAList_errorOnce() {
+    assertEquals(
+        List.of("t.yaml:17: error: spec.distances[1]: expected a list of distances such as"
+            + " [10, 21], got 7"),
+        errors(BASE + "  distances: [[10, 21], 7]\n"));
+  }
+
+  @Test
+  void read_documentNotAMapping_error() {
+    assertEquals(
+        List.of("t.yaml:1: error: expected a HostProfile mapping with apiVersion, kind, metadata"
+            + " and spec, got hello"),
+        errors("hello\n"));
+  }
+
+  @Test
   void read_slitNotANumber_error() {
     assertEquals(
         List.of("t.yaml:17: error: spec.distances[0][1]: expected a whole number from 10 to 255,"
