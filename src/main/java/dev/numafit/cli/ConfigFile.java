@@ -53,7 +53,11 @@ final class ConfigFile {
     List<Entry> entries = new ArrayList<>();
     List<Diagnostic> errors = new ArrayList<>();
     Path base = file.toAbsolutePath().getParent();
-    YAMLMapper mapper = new YAMLMapper();
+    // Read value by value from one parser: trailing tokens are the next keys, not an error.
+    YAMLMapper mapper =
+        YAMLMapper.builder()
+            .disable(tools.jackson.databind.DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .build();
     try (JsonParser p = mapper.createParser(text)) {
       JsonToken t = p.nextToken();
       if (t == null) {

@@ -42,7 +42,8 @@ public final class DemandTextWriter implements ReportWriter<DemandReport> {
               "  ",
               "On every worker: "
                   + t.perWorkerPods()
-                  + " per-worker pods requesting "
+                  + (t.perWorkerPods() == 1 ? " pod" : " pods")
+                  + " (DaemonSets) requesting "
                   + Units.vector(t.perWorkerRequests())
                   + "."));
     }

@@ -36,8 +36,9 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
               "  ",
               "Not sized: "
                   + report.demand().unsizedCustom().size()
-                  + " custom workloads (see numafit demand; --include-custom sizes them as a"
-                  + " guess)."));
+                  + (report.demand().unsizedCustom().size() == 1 ? " custom workload" : " custom"
+                      + " workloads")
+                  + " (see numafit demand; --include-custom sizes them as a guess)."));
     }
     if (!report.demand().skippedByKind().isEmpty()) {
       sb.append(DemandTextWriter.skippedLine(report.demand().skippedByKind()));
