@@ -119,7 +119,7 @@ class WritersTest {
             "Skipped 3 objects of 2 kinds that run no pods: ConfigMap 1, Service 2.\n"), text);
     assertTrue(text.contains("  parcel/Deployment/customs-scanner         2     2  2250m   320MiB"
         + "  Guaranteed\n"), text);
-    assertTrue(text.contains("peak 16 from HorizontalPodAutoscaler route-api maxReplicas"), text);
+    assertTrue(text.contains("peak 16 from\n      HorizontalPodAutoscaler route-api maxReplicas"), text);
   }
 
   @Test
