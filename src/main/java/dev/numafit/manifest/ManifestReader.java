@@ -323,7 +323,7 @@ public final class ManifestReader {
           continue;
         }
         PodModel pod = PodSpecs.toModel(template.getSpec(), tptr + "/spec", ctx);
-        String parent = tptr.substring(0, tptr.length() - "/template".length());
+        String parent = tptr.substring(0, tptr.lastIndexOf('/'));
         JsonNode replicasNode = doc.at(parent).get("replicas");
         Replicas replicas;
         if (replicasNode != null && replicasNode.isIntegralNumber() && replicasNode.asLong() >= 0
@@ -334,7 +334,7 @@ public final class ManifestReader {
           replicas = new Replicas(1, 1, "1 assumed: no replicas beside the pod template (a guess)");
         }
         WorkloadId cid = templates.size() == 1 ? id
-            : new WorkloadId(namespace, kind, name + "[" + dotted(parent.substring(ptr.length()))
+            : new WorkloadId(namespace, kind, name + "[" + templateLabel(tptr.substring(ptr.length()))
                 + "]");
         found.add(new Candidate(cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas,
             false, true, false));
@@ -700,6 +700,15 @@ public final class ManifestReader {
     return n != null && n.isString() ? n.asString() : null;
   }
 
+  /**
+   * A template's place in its object: {@code /spec/workerGroupSpecs/0/template} → {@code
+   * spec.workerGroupSpecs[0]}; a named template such as {@code workerTemplate} keeps its name.
+   */
+  private static String templateLabel(String pointer) {
+    String p = pointer.endsWith("/template") ? pointer.substring(0, pointer.length() - 9) : pointer;
+    return dotted(p);
+  }
+
   /** {@code /spec/workerGroupSpecs/0} → {@code spec.workerGroupSpecs[0]}. */
   private static String dotted(String pointer) {
     StringBuilder b = new StringBuilder();
@@ -716,19 +725,21 @@ public final class ManifestReader {
     return b.toString();
   }
 
-  /** Every {@code template} holding {@code spec.containers} under a node, in document order. */
+  /**
+   * Every pod template under a node, in document order: a {@code template} (or {@code *Template},
+   * as in {@code workerTemplate}) whose {@code spec.containers} is a list.
+   */
   private static void findTemplates(JsonNode n, String ptr, List<String> out) {
     if (n.isObject()) {
-      JsonNode t = n.get("template");
-      boolean isTemplate = t != null && t.isObject() && t.path("spec").path("containers").isArray();
-      if (isTemplate) {
-        out.add(ptr + "/template");
-      }
       for (Map.Entry<String, JsonNode> e : n.properties()) {
-        if (isTemplate && e.getKey().equals("template")) {
-          continue;
+        String child = ptr + "/" + LocatedDocument.segment(e.getKey());
+        JsonNode v = e.getValue();
+        boolean templateKey = e.getKey().equals("template") || e.getKey().endsWith("Template");
+        if (templateKey && v.isObject() && v.path("spec").path("containers").isArray()) {
+          out.add(child);
+        } else {
+          findTemplates(v, child, out);
         }
-        findTemplates(e.getValue(), ptr + "/" + LocatedDocument.segment(e.getKey()), out);
       }
     } else if (n.isArray()) {
       for (int i = 0; i < n.size(); i++) {
