@@ -28,8 +28,8 @@ class ExampleProfilesTest {
   }
 
   @Test
-  void twoSocketOneNodeEach_oneNodeShape_30VcpusAnd247Gi() throws Exception {
-    ProfileLoad l = load("two-socket-one-node-each.yaml");
+  void twoSocketOneNodePerSocket_oneNodeShape_30VcpusAnd247Gi() throws Exception {
+    ProfileLoad l = load("two-socket-one-node-per-socket.yaml");
     assertEquals(List.of(), l.warnings());
     ShapeSet s = DERIVER.derive(l.profile());
     // 32 cores − 2 reserved on node 0 = 30; 256Gi − 16Gi/2 − 512Mi = 247.5Gi → 247Gi.
@@ -47,8 +47,8 @@ class ExampleProfilesTest {
   }
 
   @Test
-  void twoSocketFourNodesEach_exceptionNode7_poolHas10Vcpus() throws Exception {
-    ProfileLoad l = load("two-socket-four-nodes-each.yaml");
+  void twoSocketFourNodesPerSocket_exceptionNode7_poolHas10Vcpus() throws Exception {
+    ProfileLoad l = load("two-socket-four-nodes-per-socket.yaml");
     assertEquals(List.of(), l.warnings());
     ShapeSet s = DERIVER.derive(l.profile());
     // Node 0: 12 − 1 reserved = 11; node 7 (exception): 10 cores → pool 10.
