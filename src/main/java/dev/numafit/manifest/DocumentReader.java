@@ -72,7 +72,7 @@ final class DocumentReader {
         diagnostics.add(
             Diagnostic.error(
                 new SourceRef(file, Math.max(errorLine, 0)),
-                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, asJson)));
+                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, offset)));
         if (!asJson) {
           // Resume at the next document separator after the error, if any.
           for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
@@ -158,7 +158,7 @@ final class DocumentReader {
     return line(e.getLocation());
   }
 
-  private static String problem(JacksonException e, boolean asJson) {
+  private static String problem(JacksonException e, int lineOffset) {
     for (Throwable c = e; c != null; c = c.getCause()) {
       if (c instanceof MarkedYamlEngineException m) {
         String problem = m.getProblem() == null ? "" : m.getProblem();
@@ -167,9 +167,13 @@ final class DocumentReader {
           return problem + " (YAML indents with spaces only)";
         }
         String context = m.getContext();
-        return context == null || context.isBlank()
-            ? problem
-            : problem + " (" + context.trim() + ")";
+        if (context == null || context.isBlank()) {
+          return problem;
+        }
+        String started = m.getContextMark()
+            .map(mark -> " started on line " + (mark.getLine() + 1 + lineOffset))
+            .orElse("");
+        return problem + " (" + context.trim() + started + ")";
       }
     }
     String msg = e.getOriginalMessage();

@@ -359,7 +359,7 @@ public final class ManifestReader {
             return false;
           }
           PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false));
+          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false), ctx);
         }
         case DEPLOYMENT -> {
           Deployment o = convert(node, Deployment.class, ptr, ctx);
@@ -404,7 +404,7 @@ public final class ManifestReader {
           }
           PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
           PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false));
+          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false), ctx);
         }
         case JOB -> {
           Job o = convert(node, Job.class, ptr, ctx);
@@ -465,8 +465,10 @@ public final class ManifestReader {
                 PodSpecs.quantities(item.getDefaultRequest(), ip + "/defaultRequest",
                     "spec.limits[" + i + "].defaultRequest", ctx)));
           }
-          limitRanges.computeIfAbsent(id.namespace(), n -> new TreeMap<>())
-              .put(key, new NamedLimits(id.name(), d));
+          if (ctx.errors.isEmpty()) {
+            limitRanges.computeIfAbsent(id.namespace(), n -> new TreeMap<>())
+                .put(key, new NamedLimits(id.name(), d));
+          }
         }
         case RUNTIME_CLASS -> {
           RuntimeClass o = convert(node, RuntimeClass.class, ptr, ctx);
@@ -478,7 +480,9 @@ public final class ManifestReader {
             fixed = PodSpecs.quantities(o.getOverhead().getPodFixed(), ptr + "/overhead/podFixed",
                 "overhead.podFixed", ctx);
           }
-          runtimeClasses.put(id.name(), new Overhead(fixed, source));
+          if (ctx.errors.isEmpty()) {
+            runtimeClasses.put(id.name(), new Overhead(fixed, source));
+          }
         }
         default -> throw new IllegalStateException(k.toString());
       }
@@ -494,7 +498,7 @@ public final class ManifestReader {
       }
       PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), templatePtr, ctx);
       put(key, new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false,
-          true));
+          true), ctx);
     }
 
     void job(String key, WorkloadId id, SourceRef source, JobSpec s, String jobSpecPtr,
@@ -515,11 +519,13 @@ public final class ManifestReader {
       PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(),
           jobSpecPtr + "/template/spec", ctx);
       put(key, new Candidate(id, source, pod, ReplicaRules.job(parallelism, completions), false,
-          false, false));
+          false, false), ctx);
     }
 
-    void put(String key, Candidate c) {
-      workloads.put(key, c);
+    void put(String key, Candidate c, ObjectContext ctx) {
+      if (ctx.errors.isEmpty()) {
+        workloads.put(key, c);
+      }
     }
 
     /** Records an object's place; a second definition warns and the later one wins. */
