@@ -18,6 +18,7 @@ import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
+import tools.jackson.dataformat.yaml.YAMLParser;
 
 /**
  * Splits one file's text into documents (multi-document YAML, or JSON values back to back) and
@@ -64,7 +65,7 @@ final class DocumentReader {
             continue;
           }
           Map<String, Integer> positions = new HashMap<>();
-          JsonNode root = build(p, t, "", positions, offset);
+          JsonNode root = build(p, t, "", positions, offset, new HashMap<>());
           sink.accept(new LocatedDocument(file, root, positions, start));
         }
       } catch (JacksonException e) {
@@ -94,8 +95,35 @@ final class DocumentReader {
   }
 
   private JsonNode build(
-      JsonParser p, JsonToken t, String pointer, Map<String, Integer> positions, int offset) {
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors) {
     positions.put(pointer, offset + line(p.currentTokenLocation()));
+    if (p instanceof YAMLParser y && t == JsonToken.VALUE_STRING && y.isCurrentAlias()) {
+      // An alias (*name) repeats the node anchored as &name earlier in the document.
+      JsonNode anchored = anchors.get(p.getString());
+      if (anchored != null) {
+        return anchored.deepCopy();
+      }
+    }
+    Object anchor = p.getObjectId();
+    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors);
+    if (anchor != null) {
+      anchors.put(anchor.toString(), node);
+    }
+    return node;
+  }
+
+  private JsonNode buildValue(
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors) {
     switch (t) {
       case START_OBJECT:
         {
@@ -105,7 +133,7 @@ final class DocumentReader {
             String name = p.currentName();
             String child = pointer + "/" + LocatedDocument.segment(name);
             JsonToken v = p.nextToken();
-            o.set(name, build(p, v, child, positions, offset));
+            o.set(name, build(p, v, child, positions, offset, anchors));
           }
           return o;
         }
@@ -115,7 +143,7 @@ final class DocumentReader {
           JsonToken n;
           int i = 0;
           while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
-            a.add(build(p, n, pointer + "/" + i, positions, offset));
+            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors));
             i++;
           }
           return a;

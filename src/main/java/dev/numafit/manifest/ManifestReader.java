@@ -233,7 +233,16 @@ public final class ManifestReader {
             + (o.emptyDocuments == 1 ? " empty or comment-only document"
                 : " empty or comment-only documents")));
       }
-      docs.forEach(this::document);
+      for (LocatedDocument doc : docs) {
+        try {
+          document(doc);
+        } catch (RuntimeException e) {
+          // A safety net: whatever an unexpected document does, the rest is still read.
+          diags.add(Diagnostic.error(new SourceRef(doc.file(), doc.startLine()),
+              "cannot read this document (" + e.getClass().getSimpleName() + ": "
+                  + e.getMessage() + ")"));
+        }
+      }
     }
 
     void document(LocatedDocument doc) {

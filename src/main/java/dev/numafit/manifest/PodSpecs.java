@@ -108,7 +108,6 @@ final class PodSpecs {
 
   /** One quantity in base units, or empty after recording an error. */
   static Optional<BigDecimal> amount(Quantity q, String ptr, String field, ObjectContext ctx) {
-    String written = ctx.written(ptr, q);
     BigDecimal v;
     try {
       if (q == null) {
@@ -116,16 +115,17 @@ final class PodSpecs {
       }
       v = q.getNumericalAmount();
     } catch (RuntimeException ex) {
-      ctx.error(ptr, field + " \"" + written + "\" is not a Kubernetes quantity " + EXPECTED);
+      ctx.error(ptr, field + " \"" + ctx.written(ptr, q) + "\" is not a Kubernetes quantity "
+          + EXPECTED);
       return Optional.empty();
     }
     if (v.signum() < 0) {
-      ctx.error(ptr, field + " \"" + written
+      ctx.error(ptr, field + " \"" + ctx.written(ptr, q)
           + "\" is negative (expected a quantity of zero or more, e.g. 500m, 2, 1.5Gi)");
       return Optional.empty();
     }
     if (v.compareTo(LONG_MAX) > 0) {
-      ctx.error(ptr, field + " \"" + written
+      ctx.error(ptr, field + " \"" + ctx.written(ptr, q)
           + "\" is larger than a Kubernetes quantity can hold (at most 2^63-1)");
       return Optional.empty();
     }

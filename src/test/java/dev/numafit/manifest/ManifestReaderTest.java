@@ -669,4 +669,66 @@ class ManifestReaderTest {
     assertEquals(read(dir), read(dir));
     assertFalse(read(dir).diagnostics().isEmpty());
   }
+
+  @Test
+  void read_crlfAndAnchors_sameAsLf() throws IOException {
+    String lf = """
+        apiVersion: v1
+        kind: Pod
+        metadata:
+          name: anchored
+        spec:
+          containers:
+          - name: a
+            resources:
+              requests: &sizes {cpu: 100m, memory: 64Mi}
+              limits: *sizes
+        """;
+    Workload unix = workload(read(write("lf.yaml", lf)), "default/Pod/anchored");
+    Demand crlf = read(write("crlf.yaml", lf.replace("\n", "\r\n")));
+    assertEquals(unix.pod(), workload(crlf, "default/Pod/anchored").pod());
+    assertEquals(unix.source().line(), workload(crlf, "default/Pod/anchored").source().line());
+    // The alias repeats the anchored requests as limits: request = limit → Guaranteed (K8).
+    assertEquals(QosClass.GUARANTEED, unix.pod().qos());
+  }
+
+  @Test
+  void read_containersAsMapping_errorNamingFieldAndLine() throws IOException {
+    Path f = write("shape.yaml", """
+        apiVersion: apps/v1
+        kind: Deployment
+        metadata: {name: odd}
+        spec:
+          template:
+            spec:
+              containers:
+                web: {image: example.invalid/app:1}
+        """);
+    assertEquals(List.of(f + ":8: error: default/Deployment/odd: spec.template.spec.containers"
+        + " expects a list, got a mapping"), messages(read(f), Severity.ERROR));
+  }
+
+  @Test
+  void read_autoscalerWithoutTarget_noteAndIgnored() throws IOException {
+    Path f = write("lonely.yaml", """
+        apiVersion: autoscaling/v2
+        kind: HorizontalPodAutoscaler
+        metadata: {name: lonely, namespace: shop}
+        spec:
+          scaleTargetRef: {apiVersion: apps/v1, kind: Deployment, name: gone}
+          maxReplicas: 4
+        """);
+    Demand d = read(f);
+    assertEquals(List.of(f + ":2: note: HorizontalPodAutoscaler shop/lonely targets Deployment gone,"
+        + " which is not a Deployment, ReplicaSet, StatefulSet or ReplicationController in the"
+        + " input; ignored"), messages(d, Severity.NOTE));
+  }
+
+  @Test
+  void read_stdinYaml_shownAsStdin() {
+    String yaml = pod("piped", "requests: {cpu: 250m}");
+    Demand d = new ManifestReader().read(List.of("-"),
+        new ByteArrayInputStream(yaml.getBytes(StandardCharsets.UTF_8)), ReadOptions.defaults());
+    assertEquals("<stdin>:2", workload(d, "default/Pod/piped").source().toString());
+  }
 }
