@@ -88,6 +88,10 @@ public final class ManifestReader {
           continue;
         }
         stdinRead = true;
+        if (stdin == null) {
+          s.diags.add(Diagnostic.error(new SourceRef(STDIN, 0), "no standard input to read"));
+          continue;
+        }
         s.readStdin(stdin);
         continue;
       }
@@ -442,9 +446,13 @@ public final class ManifestReader {
             ctx.error(spec, "spec.maxReplicas and spec.scaleTargetRef (kind, name) are required");
             return false;
           }
-          if (s.getMaxReplicas() < 0) {
+          // minReplicas defaults to 1 and maxReplicas may not be below it (HPA API reference, K20).
+          int min = s.getMinReplicas() == null ? 1 : s.getMinReplicas();
+          if (s.getMaxReplicas() < min) {
             ctx.error(spec + "/maxReplicas", "spec.maxReplicas " + s.getMaxReplicas()
-                + " is negative (expected 1 or more)");
+                + " is below minReplicas " + min
+                + (s.getMinReplicas() == null ? " (the default)" : "")
+                + " (expected maxReplicas >= minReplicas)");
             return false;
           }
           autoscalers.put(key, new Autoscaler(id.namespace() + "/" + id.name(), id.namespace(),

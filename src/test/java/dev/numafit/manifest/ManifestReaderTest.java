@@ -731,4 +731,21 @@ class ManifestReaderTest {
         new ByteArrayInputStream(yaml.getBytes(StandardCharsets.UTF_8)), ReadOptions.defaults());
     assertEquals("<stdin>:2", workload(d, "default/Pod/piped").source().toString());
   }
+
+  @Test
+  void read_autoscalerMaxZeroWithoutMin_errorBecauseMinDefaultsToOne() throws IOException {
+    // FACTS check value 20 (HPA API reference, K20): unset minReplicas is 1, and maxReplicas must
+    // be at least minReplicas, so maxReplicas 0 without minReplicas is invalid.
+    Path f = write("zero.yaml", """
+        apiVersion: autoscaling/v2
+        kind: HorizontalPodAutoscaler
+        metadata: {name: zero}
+        spec:
+          scaleTargetRef: {kind: Deployment, name: web}
+          maxReplicas: 0
+        """);
+    assertEquals(List.of(f + ":6: error: default/HorizontalPodAutoscaler/zero: spec.maxReplicas 0 is"
+        + " below minReplicas 1 (the default) (expected maxReplicas >= minReplicas)"),
+        messages(read(f), Severity.ERROR));
+  }
 }
