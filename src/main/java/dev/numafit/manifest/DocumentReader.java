@@ -198,9 +198,10 @@ final class DocumentReader {
         if (context == null || context.isBlank()) {
           return problem;
         }
-        String started = m.getContextMark()
-            .map(mark -> " started on line " + (mark.getLine() + 1 + lineOffset))
-            .orElse("");
+        String started =
+            m.getContextMark()
+                .map(mark -> " started on line " + (mark.getLine() + 1 + lineOffset))
+                .orElse("");
         return problem + " (" + context.trim() + started + ")";
       }
     }

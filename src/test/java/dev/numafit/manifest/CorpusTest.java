@@ -32,13 +32,17 @@ class CorpusTest {
   }
 
   private static Demand read(Path... paths) {
-    return new ManifestReader().read(
-        java.util.Arrays.stream(paths).map(Path::toString).toList(),
-        new ByteArrayInputStream(new byte[0]), ReadOptions.defaults());
+    return new ManifestReader()
+        .read(
+            java.util.Arrays.stream(paths).map(Path::toString).toList(),
+            new ByteArrayInputStream(new byte[0]),
+            ReadOptions.defaults());
   }
 
   private static Workload workload(Demand d, String id) {
-    return d.workloads().stream().filter(w -> w.id().toString().equals(id)).findFirst()
+    return d.workloads().stream()
+        .filter(w -> w.id().toString().equals(id))
+        .findFirst()
         .orElseThrow(() -> new AssertionError(id + " not found; " + d.diagnostics()));
   }
 
@@ -67,7 +71,8 @@ class CorpusTest {
     assertEquals(Map.of("Service", 12, "ServiceAccount", 11), d.skippedByKind());
     // The loadgenerator's init container has no requests: it runs alone before the app starts and
     // changes nothing (KEP-753).
-    assertEquals(Resources.of("cpu", 300L, "memory", 256 * MIB),
+    assertEquals(
+        Resources.of("cpu", 300L, "memory", 256 * MIB),
         workload(d, "default/Deployment/loadgenerator").pod().requests());
   }
 
@@ -122,8 +127,8 @@ class CorpusTest {
   void read_kubectlJsonLists_itemsAndBackToBackObjects() {
     Path set = corpus("kubectl-testdata-lists-json");
     Demand rcList = read(set.resolve("multi-resource-rclist.json"));
-    assertEquals(List.of("default/ReplicationController/mock",
-        "default/ReplicationController/mock2"),
+    assertEquals(
+        List.of("default/ReplicationController/mock", "default/ReplicationController/mock2"),
         rcList.workloads().stream().map(w -> w.id().toString()).toList());
     // Two JSON objects back to back: a Service and a ReplicationController.
     Demand twoObjects = read(set.resolve("multi-resource-json.json"));
@@ -131,7 +136,8 @@ class CorpusTest {
     assertEquals(Map.of("Service", 1), twoObjects.skippedByKind());
     assertEquals(1, twoObjects.workloads().size());
     Demand yamlList = read(set.resolve("list.yaml"));
-    assertEquals(1, workload(yamlList, "default/Deployment/list-deployment-test").replicas().peak());
+    assertEquals(
+        1, workload(yamlList, "default/Deployment/list-deployment-test").replicas().peak());
   }
 
   @Test
@@ -153,8 +159,8 @@ class CorpusTest {
     // A JSON Pod with only a 100m CPU limit requests 100m.
     assertEquals(100L, workload(d, "default/Pod/coordinator").pod().requests().get("cpu"));
     // A JSON ReplicationController with replicas 2.
-    assertEquals(2,
-        workload(d, "default/ReplicationController/webapp-controller").replicas().peak());
+    assertEquals(
+        2, workload(d, "default/ReplicationController/webapp-controller").replicas().peak());
     assertTrue(d.skippedByKind().containsKey("PersistentVolumeClaim"));
   }
 }

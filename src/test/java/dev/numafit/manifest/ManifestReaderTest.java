@@ -50,17 +50,22 @@ class ManifestReaderTest {
   }
 
   private static Workload workload(Demand d, String id) {
-    return d.workloads().stream().filter(w -> w.id().toString().equals(id)).findFirst()
-        .orElseThrow(() -> new AssertionError(id + " not in " + d.workloads() + "\n"
-            + d.diagnostics()));
+    return d.workloads().stream()
+        .filter(w -> w.id().toString().equals(id))
+        .findFirst()
+        .orElseThrow(
+            () -> new AssertionError(id + " not in " + d.workloads() + "\n" + d.diagnostics()));
   }
 
   private static List<String> messages(Demand d, Severity s) {
-    return d.diagnostics().stream().filter(x -> x.severity() == s).map(Diagnostic::format)
+    return d.diagnostics().stream()
+        .filter(x -> x.severity() == s)
+        .map(Diagnostic::format)
         .collect(Collectors.toList());
   }
 
-  private static final String OVERHEAD_DOCS = """
+  private static final String OVERHEAD_DOCS =
+      """
       apiVersion: node.k8s.io/v1
       kind: RuntimeClass
       metadata:
@@ -114,35 +119,41 @@ class ManifestReaderTest {
     // FACTS check value 2 (K1): without its overhead the pod is 2000m and 200Mi.
     assertEquals(Resources.of("cpu", 2000L, "memory", 200 * MIB), w.pod().requests());
     assertTrue(w.flags().contains("overhead unknown: RuntimeClass sandboxed not in input"));
-    assertEquals(List.of(f + ":2: warning: default/Pod/test-pod: RuntimeClass \"sandboxed\" is not"
-        + " in the input, so its pod overhead is unknown and counted as zero"),
+    assertEquals(
+        List.of(
+            f
+                + ":2: warning: default/Pod/test-pod: RuntimeClass \"sandboxed\" is not"
+                + " in the input, so its pod overhead is unknown and counted as zero"),
         messages(d, Severity.WARNING));
   }
 
   private static String pod(String name, String resources) {
     return """
-        apiVersion: v1
-        kind: Pod
-        metadata:
-          name: %s
-        spec:
-          containers:
-          - name: app
-            resources:
-        %s
-        """.formatted(name, resources.indent(6).stripTrailing());
+           apiVersion: v1
+           kind: Pod
+           metadata:
+             name: %s
+           spec:
+             containers:
+             - name: app
+               resources:
+           %s
+           """
+        .formatted(name, resources.indent(6).stripTrailing());
   }
 
   @Test
   void read_quantityForms_checkValue4() throws IOException {
     // FACTS check value 4 (Quantity reference K10, K5): 123Mi = 128974848 bytes; 129M, 129e6 and
     // 128974848000m are written out below with their exact values.
-    String yaml = String.join("---\n",
-        pod("mi", "requests: {memory: 123Mi}"),
-        pod("mega", "requests: {memory: 129M}"),
-        pod("exp", "requests: {memory: 129e6}"),
-        pod("expquoted", "requests: {memory: \"129e6\"}"),
-        pod("milli", "requests: {memory: 128974848000m}"));
+    String yaml =
+        String.join(
+            "---\n",
+            pod("mi", "requests: {memory: 123Mi}"),
+            pod("mega", "requests: {memory: 129M}"),
+            pod("exp", "requests: {memory: 129e6}"),
+            pod("expquoted", "requests: {memory: \"129e6\"}"),
+            pod("milli", "requests: {memory: 128974848000m}"));
     Demand d = read(write("q.yaml", yaml));
     assertEquals(128974848L, workload(d, "default/Pod/mi").pod().requests().get("memory"));
     assertEquals(129000000L, workload(d, "default/Pod/mega").pod().requests().get("memory"));
@@ -155,11 +166,13 @@ class ManifestReaderTest {
   void read_quantityForms_checkValue5() throws IOException {
     // FACTS check value 5 (K10, K5): cpu 0.1 = 100m; 1.5 = 1500m; 1.5Gi = 1536Mi; 0.1m rounds up
     // to 1m; memory 400m is 0.4 bytes (read as 1 byte once rounded up).
-    String yaml = String.join("---\n",
-        pod("tenth", "requests: {cpu: 0.1}"),
-        pod("oneandahalf", "requests: {cpu: \"1.5\", memory: 1.5Gi}"),
-        pod("tiny", "requests: {cpu: 0.1m}"),
-        pod("fraction", "requests: {memory: 400m}"));
+    String yaml =
+        String.join(
+            "---\n",
+            pod("tenth", "requests: {cpu: 0.1}"),
+            pod("oneandahalf", "requests: {cpu: \"1.5\", memory: 1.5Gi}"),
+            pod("tiny", "requests: {cpu: 0.1m}"),
+            pod("fraction", "requests: {memory: 400m}"));
     Demand d = read(write("q5.yaml", yaml));
     assertEquals(100L, workload(d, "default/Pod/tenth").pod().requests().get("cpu"));
     Workload half = workload(d, "default/Pod/oneandahalf");
@@ -174,18 +187,28 @@ class ManifestReaderTest {
   @Test
   void amount_memory400m_pointFourBytes() {
     // FACTS A3 (K5): memory 400m is 0.4 bytes, exactly, before any rounding.
-    LocatedDocument doc = new LocatedDocument("x.yaml",
-        tools.jackson.databind.node.JsonNodeFactory.instance.objectNode(), java.util.Map.of(), 1);
+    LocatedDocument doc =
+        new LocatedDocument(
+            "x.yaml",
+            tools.jackson.databind.node.JsonNodeFactory.instance.objectNode(),
+            java.util.Map.of(),
+            1);
     ObjectContext ctx = new ObjectContext(doc, "default/Pod/x");
-    assertEquals(0, new java.math.BigDecimal("0.4").compareTo(PodSpecs.amount(
-        new io.fabric8.kubernetes.api.model.Quantity("400m"), "/m", "memory", ctx).orElseThrow()));
+    assertEquals(
+        0,
+        new java.math.BigDecimal("0.4")
+            .compareTo(
+                PodSpecs.amount(
+                        new io.fabric8.kubernetes.api.model.Quantity("400m"), "/m", "memory", ctx)
+                    .orElseThrow()));
   }
 
   @Test
   void read_limitRangeDefaults_docsValues() throws IOException {
     // "Configure Default Memory Requests and Limits for a Namespace" (K9): default 512Mi,
     // defaultRequest 256Mi.
-    String yaml = """
+    String yaml =
+        """
         apiVersion: v1
         kind: LimitRange
         metadata:
@@ -199,13 +222,15 @@ class ManifestReaderTest {
               memory: 256Mi
             type: Container
         ---
-        """ + String.join("---\n",
-            pod("nothing", "{}").replace("name: nothing", "name: nothing\n  namespace: team-a"),
-            pod("limit-only", "limits: {memory: 1Gi}")
-                .replace("name: limit-only", "name: limit-only\n  namespace: team-a"),
-            pod("request-only", "requests: {memory: 128Mi}")
-                .replace("name: request-only", "name: request-only\n  namespace: team-a"),
-            pod("elsewhere", "{}"));
+        """
+            + String.join(
+                "---\n",
+                pod("nothing", "{}").replace("name: nothing", "name: nothing\n  namespace: team-a"),
+                pod("limit-only", "limits: {memory: 1Gi}")
+                    .replace("name: limit-only", "name: limit-only\n  namespace: team-a"),
+                pod("request-only", "requests: {memory: 128Mi}")
+                    .replace("name: request-only", "name: request-only\n  namespace: team-a"),
+                pod("elsewhere", "{}"));
     Demand d = read(write("lr.yaml", yaml));
     Workload nothing = workload(d, "team-a/Pod/nothing");
     assertEquals(256 * MIB, nothing.pod().requests().get("memory"));
@@ -224,7 +249,8 @@ class ManifestReaderTest {
   @Test
   void read_limitRangeOnlyMax_defaultsFromMax() throws IOException {
     // SetDefaults_LimitRangeItem (K9b): default from max, defaultRequest from default.
-    String yaml = """
+    String yaml =
+        """
         apiVersion: v1
         kind: LimitRange
         metadata: {name: cpu-max}
@@ -233,13 +259,15 @@ class ManifestReaderTest {
           - type: Container
             max: {cpu: 800m}
         ---
-        """ + pod("plain", "{}");
+        """
+            + pod("plain", "{}");
     Workload w = workload(read(write("max.yaml", yaml)), "default/Pod/plain");
     assertEquals(800L, w.pod().requests().get("cpu"));
     assertEquals(800L, w.pod().limits().get("cpu"));
   }
 
-  private static final String SIDECAR_POD = """
+  private static final String SIDECAR_POD =
+      """
       apiVersion: v1
       kind: Pod
       metadata: {name: %s}
@@ -257,14 +285,17 @@ class ManifestReaderTest {
     // the other order gives 1100m.
     String sidecar = "{name: proxy, restartPolicy: Always, resources: {requests: {cpu: 800m}}}";
     String init = "{name: migrate, resources: {requests: {cpu: 500m}}}";
-    String yaml = SIDECAR_POD.formatted("first", "- " + sidecar + "\n  - " + init) + "---\n"
-        + SIDECAR_POD.formatted("second", "- " + init + "\n  - " + sidecar);
+    String yaml =
+        SIDECAR_POD.formatted("first", "- " + sidecar + "\n  - " + init)
+            + "---\n"
+            + SIDECAR_POD.formatted("second", "- " + init + "\n  - " + sidecar);
     Demand d = read(write("sidecar.yaml", yaml));
     assertEquals(1300L, workload(d, "default/Pod/first").pod().requests().get("cpu"));
     assertEquals(1100L, workload(d, "default/Pod/second").pod().requests().get("cpu"));
   }
 
-  private static final String AUTOSCALED = """
+  private static final String AUTOSCALED =
+      """
       apiVersion: apps/v1
       kind: Deployment
       metadata: {name: storefront, namespace: shop}
@@ -305,10 +336,12 @@ class ManifestReaderTest {
   @Test
   void read_autoscalersV1AndV2_peakIsMaxReplicas() throws IOException {
     Demand d = read(write("hpa.yaml", AUTOSCALED));
-    assertEquals(new Replicas(2, 10, "HorizontalPodAutoscaler shop/storefront maxReplicas"),
+    assertEquals(
+        new Replicas(2, 10, "HorizontalPodAutoscaler shop/storefront maxReplicas"),
         workload(d, "shop/Deployment/storefront").replicas());
     // FACTS check value 20 (K20): unset StatefulSet replicas → 1 declared.
-    assertEquals(new Replicas(1, 6, "HorizontalPodAutoscaler shop/ledger-scaler maxReplicas"),
+    assertEquals(
+        new Replicas(1, 6, "HorizontalPodAutoscaler shop/ledger-scaler maxReplicas"),
         workload(d, "shop/StatefulSet/ledger").replicas());
     assertEquals(List.of(), messages(d, Severity.WARNING));
   }
@@ -316,14 +349,16 @@ class ManifestReaderTest {
   @Test
   void read_autoscalersDeclaredMode_specReplicas() throws IOException {
     Demand d = read(new ReadOptions(ReplicaMode.DECLARED, false), write("hpa.yaml", AUTOSCALED));
-    assertEquals(new Replicas(2, 2, "spec.replicas"),
-        workload(d, "shop/Deployment/storefront").replicas());
-    assertEquals(new Replicas(1, 1, "default 1"), workload(d, "shop/StatefulSet/ledger").replicas());
+    assertEquals(
+        new Replicas(2, 2, "spec.replicas"), workload(d, "shop/Deployment/storefront").replicas());
+    assertEquals(
+        new Replicas(1, 1, "default 1"), workload(d, "shop/StatefulSet/ledger").replicas());
   }
 
   @Test
   void read_jobsAndCronJobs_podsAtOnce() throws IOException {
-    String job = """
+    String job =
+        """
         apiVersion: batch/v1
         kind: Job
         metadata: {name: %s}
@@ -334,24 +369,26 @@ class ManifestReaderTest {
               restartPolicy: Never
               containers: [{name: run, resources: {requests: {cpu: 100m}}}]
         """;
-    String yaml = String.join("---\n",
-        job.formatted("queue", "parallelism: 4"),
-        job.formatted("bounded", "parallelism: 5\n  completions: 2"),
-        job.formatted("plain", "backoffLimit: 6"),
-        """
-        apiVersion: batch/v1beta1
-        kind: CronJob
-        metadata: {name: nightly}
-        spec:
-          schedule: "0 3 * * *"
-          jobTemplate:
+    String yaml =
+        String.join(
+            "---\n",
+            job.formatted("queue", "parallelism: 4"),
+            job.formatted("bounded", "parallelism: 5\n  completions: 2"),
+            job.formatted("plain", "backoffLimit: 6"),
+            """
+            apiVersion: batch/v1beta1
+            kind: CronJob
+            metadata: {name: nightly}
             spec:
-              parallelism: 3
-              template:
+              schedule: "0 3 * * *"
+              jobTemplate:
                 spec:
-                  restartPolicy: OnFailure
-                  containers: [{name: run, resources: {requests: {cpu: 100m}}}]
-        """);
+                  parallelism: 3
+                  template:
+                    spec:
+                      restartPolicy: OnFailure
+                      containers: [{name: run, resources: {requests: {cpu: 100m}}}]
+            """);
     Path f = write("jobs.yaml", yaml);
     Demand d = read(f);
     // K20: parallelism pods at once; never more than completions.
@@ -361,14 +398,19 @@ class ManifestReaderTest {
     assertEquals(1, workload(d, "default/Job/plain").replicas().peak());
     // A CronJob counts one Job of its template.
     assertEquals(3, workload(d, "default/CronJob/nightly").replicas().peak());
-    assertTrue(messages(d, Severity.NOTE).contains(f + ":33: note: default/CronJob/nightly: old"
-        + " apiVersion batch/v1beta1 (now batch/v1); read with the current schema"),
+    assertTrue(
+        messages(d, Severity.NOTE)
+            .contains(
+                f
+                    + ":33: note: default/CronJob/nightly: old"
+                    + " apiVersion batch/v1beta1 (now batch/v1); read with the current schema"),
         messages(d, Severity.NOTE).toString());
   }
 
   @Test
   void read_daemonSet_perWorker() throws IOException {
-    String yaml = """
+    String yaml =
+        """
         apiVersion: apps/v1
         kind: DaemonSet
         metadata: {name: log-shipper, namespace: ops}
@@ -384,7 +426,8 @@ class ManifestReaderTest {
 
   @Test
   void read_sameObjectTwice_laterWinsWithWarningNamingBoth() throws IOException {
-    String deployment = """
+    String deployment =
+        """
         apiVersion: apps/v1
         kind: Deployment
         metadata: {name: api}
@@ -399,22 +442,35 @@ class ManifestReaderTest {
     Demand d = read(dir);
     assertEquals(1, d.workloads().size());
     assertEquals(5, workload(d, "default/Deployment/api").replicas().peak());
-    assertEquals(List.of(b + ":2: warning: default/Deployment/api is defined twice, at " + a
-        + ":2 and at " + b + ":2; the later definition is used"), messages(d, Severity.WARNING));
+    assertEquals(
+        List.of(
+            b
+                + ":2: warning: default/Deployment/api is defined twice, at "
+                + a
+                + ":2 and at "
+                + b
+                + ":2; the later definition is used"),
+        messages(d, Severity.WARNING));
   }
 
   @Test
   void read_malformedDocument_errorWithLineAndRestOfFileRead() throws IOException {
-    String yaml = pod("before", "requests: {cpu: 100m}") + "---\n"
-        + "apiVersion: v1\nkind: Pod\nmetadata: {name: broken\nspec: {}\n" + "---\n"
-        + pod("after", "requests: {cpu: 200m}");
+    String yaml =
+        pod("before", "requests: {cpu: 100m}")
+            + "---\n"
+            + "apiVersion: v1\nkind: Pod\nmetadata: {name: broken\nspec: {}\n"
+            + "---\n"
+            + pod("after", "requests: {cpu: 200m}");
     Path f = write("mixed.yaml", yaml);
     Demand d = read(f);
     List<String> errors = messages(d, Severity.ERROR);
     assertEquals(1, errors.size(), errors.toString());
     // The parser notices the unclosed mapping of line 13 on line 14.
-    assertEquals(f + ":14: error: malformed YAML: expected ',' or '}', but got : (while parsing a"
-        + " flow mapping started on line 13)", errors.get(0));
+    assertEquals(
+        f
+            + ":14: error: malformed YAML: expected ',' or '}', but got : (while parsing a"
+            + " flow mapping started on line 13)",
+        errors.get(0));
     assertEquals(100L, workload(d, "default/Pod/before").pod().requests().get("cpu"));
     assertEquals(200L, workload(d, "default/Pod/after").pod().requests().get("cpu"));
   }
@@ -423,27 +479,37 @@ class ManifestReaderTest {
   void read_tabIndentation_errorOnTheTabLine() throws IOException {
     Path f = write("tab.yaml", "apiVersion: v1\nkind: Pod\nmetadata:\n\tname: x\n");
     Demand d = read(f);
-    assertEquals(List.of(f + ":4: error: malformed YAML: found character a tab that cannot start"
-        + " any token. (Do not use tabs for indentation) (YAML indents with spaces only)"),
+    assertEquals(
+        List.of(
+            f
+                + ":4: error: malformed YAML: found character a tab that cannot start"
+                + " any token. (Do not use tabs for indentation) (YAML indents with spaces only)"),
         messages(d, Severity.ERROR));
   }
 
   @Test
   void read_replicasThree_errorOnTheReplicasLine() throws IOException {
-    Path f = write("three.yaml", """
-        apiVersion: apps/v1
-        kind: Deployment
-        metadata:
-          name: web
-        spec:
-          replicas: three
-          template:
+    Path f =
+        write(
+            "three.yaml",
+            """
+            apiVersion: apps/v1
+            kind: Deployment
+            metadata:
+              name: web
             spec:
-              containers: [{name: web}]
-        """);
+              replicas: three
+              template:
+                spec:
+                  containers: [{name: web}]
+            """);
     Demand d = read(f);
-    assertEquals(List.of(f + ":6: error: default/Deployment/web: spec.replicas expects an integer,"
-        + " got \"three\""), messages(d, Severity.ERROR));
+    assertEquals(
+        List.of(
+            f
+                + ":6: error: default/Deployment/web: spec.replicas expects an integer,"
+                + " got \"three\""),
+        messages(d, Severity.ERROR));
     assertTrue(d.workloads().isEmpty());
   }
 
@@ -451,8 +517,11 @@ class ManifestReaderTest {
   void read_invalidQuantity_errorNamingFileLineObjectContainerFieldAndValue() throws IOException {
     Path f = write("abc.yaml", pod("calc", "requests:\n  cpu: abc\n  memory: 64Mi"));
     Demand d = read(f);
-    assertEquals(List.of(f + ":10: error: default/Pod/calc: container \"app\": resources.requests.cpu"
-        + " \"abc\" is not a Kubernetes quantity (expected e.g. 500m, 2, 1.5Gi)"),
+    assertEquals(
+        List.of(
+            f
+                + ":10: error: default/Pod/calc: container \"app\": resources.requests.cpu"
+                + " \"abc\" is not a Kubernetes quantity (expected e.g. 500m, 2, 1.5Gi)"),
         messages(d, Severity.ERROR));
     assertTrue(d.workloads().isEmpty());
   }
@@ -461,8 +530,11 @@ class ManifestReaderTest {
   void read_negativeQuantity_error() throws IOException {
     Path f = write("neg.yaml", pod("neg", "limits:\n  memory: -1Gi"));
     Demand d = read(f);
-    assertEquals(List.of(f + ":10: error: default/Pod/neg: container \"app\": resources.limits.memory"
-        + " \"-1Gi\" is negative (expected a quantity of zero or more, e.g. 500m, 2, 1.5Gi)"),
+    assertEquals(
+        List.of(
+            f
+                + ":10: error: default/Pod/neg: container \"app\": resources.limits.memory \"-1Gi\""
+                + " is negative (expected a quantity of zero or more, e.g. 500m, 2, 1.5Gi)"),
         messages(d, Severity.ERROR));
   }
 
@@ -470,13 +542,16 @@ class ManifestReaderTest {
   void read_folderWithOneBadFile_validRestStillRead() throws IOException {
     write("apps/1-good.yaml", pod("good", "requests: {cpu: 100m}"));
     write("apps/2-bad.yaml", pod("bad", "requests: {cpu: lots}"));
-    write("apps/3-good.json", """
+    write(
+        "apps/3-good.json",
+        """
         {"apiVersion": "v1", "kind": "Pod", "metadata": {"name": "alsogood"},
          "spec": {"containers": [{"name": "c", "resources": {"requests": {"cpu": "300m"}}}]}}
         """);
     write("apps/notes.txt", "not a manifest");
     Demand d = read(dir.resolve("apps"));
-    assertEquals(List.of("default/Pod/alsogood", "default/Pod/good"),
+    assertEquals(
+        List.of("default/Pod/alsogood", "default/Pod/good"),
         d.workloads().stream().map(w -> w.id().toString()).toList());
     assertEquals(1, messages(d, Severity.ERROR).size());
   }
@@ -485,22 +560,30 @@ class ManifestReaderTest {
   void read_missingPath_error() {
     Path missing = dir.resolve("nope.yaml");
     Demand d = read(missing);
-    assertEquals(List.of(missing + ": error: no such file or directory (expected a .yaml, .yml or"
-        + " .json file, a directory, or - for standard input)"), messages(d, Severity.ERROR));
+    assertEquals(
+        List.of(
+            missing
+                + ": error: no such file or directory (expected a .yaml, .yml or"
+                + " .json file, a directory, or - for standard input)"),
+        messages(d, Severity.ERROR));
   }
 
   @Test
   void read_emptyFileCommentsAndValues_warnAndNoteWithoutErrors() throws IOException {
     Path empty = write("empty.yaml", "\n\n");
     Path values = write("values.yaml", "replicaCount: 3\nimage: {tag: latest}\n");
-    Path comments = write("comments.yaml", "# only a comment\n---\n# another\n---\n"
-        + pod("p", "requests: {cpu: 1}"));
+    Path comments =
+        write(
+            "comments.yaml",
+            "# only a comment\n---\n# another\n---\n" + pod("p", "requests: {cpu: 1}"));
     Demand d = read(empty, values, comments);
     assertEquals(List.of(empty + ": warning: empty file"), messages(d, Severity.WARNING));
     List<String> notes = messages(d, Severity.NOTE);
-    assertTrue(notes.contains(values + ":1: note: not a Kubernetes object (no kind), skipped"),
+    assertTrue(
+        notes.contains(values + ":1: note: not a Kubernetes object (no kind), skipped"),
         notes.toString());
-    assertTrue(notes.stream().anyMatch(n -> n.startsWith(comments + ": note: skipped ")),
+    assertTrue(
+        notes.stream().anyMatch(n -> n.startsWith(comments + ": note: skipped ")),
         notes.toString());
     assertEquals(List.of(), messages(d, Severity.ERROR));
     assertEquals(1000L, workload(d, "default/Pod/p").pod().requests().get("cpu"));
@@ -508,13 +591,18 @@ class ManifestReaderTest {
 
   @Test
   void read_stdinJsonObjectsBackToBack_bothRead() {
-    String json = """
+    String json =
+        """
         {"apiVersion": "v1", "kind": "Service", "metadata": {"name": "s"}}
         {"apiVersion": "v1", "kind": "Pod", "metadata": {"name": "p"},
          "spec": {"containers": [{"name": "c", "resources": {"requests": {"cpu": "2"}}}]}}
         """;
-    Demand d = new ManifestReader().read(List.of("-"),
-        new ByteArrayInputStream(json.getBytes(StandardCharsets.UTF_8)), ReadOptions.defaults());
+    Demand d =
+        new ManifestReader()
+            .read(
+                List.of("-"),
+                new ByteArrayInputStream(json.getBytes(StandardCharsets.UTF_8)),
+                ReadOptions.defaults());
     Workload w = workload(d, "default/Pod/p");
     assertEquals("<stdin>:2", w.source().toString());
     assertEquals(2000L, w.pod().requests().get("cpu"));
@@ -523,7 +611,8 @@ class ManifestReaderTest {
 
   @Test
   void read_listKinds_itemsRead() throws IOException {
-    String yaml = """
+    String yaml =
+        """
         apiVersion: v1
         kind: List
         items:
@@ -558,7 +647,8 @@ class ManifestReaderTest {
 
   @Test
   void read_oldAndUnknownApiVersions_noteAndWarning() throws IOException {
-    String yaml = """
+    String yaml =
+        """
         apiVersion: extensions/v1beta1
         kind: Deployment
         metadata: {name: legacy}
@@ -578,13 +668,22 @@ class ManifestReaderTest {
     Path f = write("versions.yaml", yaml);
     Demand d = read(f);
     assertEquals(2, d.workloads().size());
-    assertTrue(messages(d, Severity.NOTE).contains(f + ":2: note: default/Deployment/legacy: old"
-        + " apiVersion extensions/v1beta1 (now apps/v1); read with the current schema"));
-    assertEquals(List.of(f + ":10: warning: default/Deployment/future: unknown apiVersion apps/v9"
-        + " for Deployment (expected apps/v1); read as apps/v1"), messages(d, Severity.WARNING));
+    assertTrue(
+        messages(d, Severity.NOTE)
+            .contains(
+                f
+                    + ":2: note: default/Deployment/legacy: old apiVersion extensions/v1beta1 (now"
+                    + " apps/v1); read with the current schema"));
+    assertEquals(
+        List.of(
+            f
+                + ":10: warning: default/Deployment/future: unknown apiVersion apps/v9"
+                + " for Deployment (expected apps/v1); read as apps/v1"),
+        messages(d, Severity.WARNING));
   }
 
-  private static final String CUSTOM = """
+  private static final String CUSTOM =
+      """
       apiVersion: example.invalid/v1
       kind: ComputeCluster
       metadata: {name: grid, namespace: research}
@@ -604,8 +703,10 @@ class ManifestReaderTest {
   void read_customResourceWithTemplates_listedNotSized() throws IOException {
     Demand d = read(write("custom.yaml", CUSTOM));
     assertTrue(d.workloads().isEmpty());
-    assertEquals(List.of("research/ComputeCluster/grid[spec.head]",
-        "research/ComputeCluster/grid[spec.workerGroups[0]]"),
+    assertEquals(
+        List.of(
+            "research/ComputeCluster/grid[spec.head]",
+            "research/ComputeCluster/grid[spec.workerGroups[0]]"),
         d.unsizedCustom().stream().map(w -> w.id().toString()).toList());
     Workload worker = d.unsizedCustom().get(1);
     assertEquals(3, worker.replicas().peak());
@@ -626,37 +727,54 @@ class ManifestReaderTest {
   @Test
   void read_hugepagesRequestDiffersFromLimit_error() throws IOException {
     // FACTS check value 26 (K5, K17): a hugepages request that differs from its limit is invalid.
-    Path f = write("huge.yaml", pod("huge",
-        "requests: {memory: 1Gi, hugepages-2Mi: 80Mi}\nlimits: {memory: 1Gi, hugepages-2Mi: 100Mi}"));
+    Path f =
+        write(
+            "huge.yaml",
+            pod(
+                "huge",
+                "requests: {memory: 1Gi, hugepages-2Mi: 80Mi}\n"
+                    + "limits: {memory: 1Gi, hugepages-2Mi: 100Mi}"));
     Demand d = read(f);
-    assertEquals(List.of(f + ":2: error: default/Pod/huge: container \"app\": hugepages-2Mi request"
-        + " 80Mi must equal its limit 100Mi (hugepages cannot be overcommitted)"),
+    assertEquals(
+        List.of(
+            f
+                + ":2: error: default/Pod/huge: container \"app\": hugepages-2Mi request"
+                + " 80Mi must equal its limit 100Mi (hugepages cannot be overcommitted)"),
         messages(d, Severity.ERROR));
   }
 
   @Test
   void read_podLevelLimitBelowContainers_error() throws IOException {
     // FACTS check value 15 (KEP-2837, K6b): a 100Gi pod limit over two containers limited to 60Gi.
-    Path f = write("podlevel.yaml", """
-        apiVersion: v1
-        kind: Pod
-        metadata: {name: big}
-        spec:
-          resources: {limits: {memory: 100Gi}}
-          containers:
-          - {name: a, resources: {limits: {memory: 60Gi}}}
-          - {name: b, resources: {limits: {memory: 60Gi}}}
-        """);
+    Path f =
+        write(
+            "podlevel.yaml",
+            """
+            apiVersion: v1
+            kind: Pod
+            metadata: {name: big}
+            spec:
+              resources: {limits: {memory: 100Gi}}
+              containers:
+              - {name: a, resources: {limits: {memory: 60Gi}}}
+              - {name: b, resources: {limits: {memory: 60Gi}}}
+            """);
     Demand d = read(f);
-    assertEquals(List.of(f + ":2: error: default/Pod/big: pod-level memory limit 100Gi is below the"
-        + " containers' requests 120Gi"), messages(d, Severity.ERROR));
+    assertEquals(
+        List.of(
+            f
+                + ":2: error: default/Pod/big: pod-level memory limit 100Gi is below the"
+                + " containers' requests 120Gi"),
+        messages(d, Severity.ERROR));
   }
 
   @Test
   void read_exclusiveCpusLimitsOnly_checkValue11() throws IOException {
     // FACTS check value 11 (K15): limits cpu "2", memory 200Mi → Guaranteed, 2 exclusive CPUs.
-    Workload w = workload(read(write("pin.yaml", pod("pinned", "limits: {cpu: \"2\", memory: 200Mi}"))),
-        "default/Pod/pinned");
+    Workload w =
+        workload(
+            read(write("pin.yaml", pod("pinned", "limits: {cpu: \"2\", memory: 200Mi}"))),
+            "default/Pod/pinned");
     assertEquals(QosClass.GUARANTEED, w.pod().qos());
     assertEquals(2, w.pod().exclusiveCpus());
   }
@@ -672,7 +790,8 @@ class ManifestReaderTest {
 
   @Test
   void read_crlfAndAnchors_sameAsLf() throws IOException {
-    String lf = """
+    String lf =
+        """
         apiVersion: v1
         kind: Pod
         metadata:
@@ -694,41 +813,59 @@ class ManifestReaderTest {
 
   @Test
   void read_containersAsMapping_errorNamingFieldAndLine() throws IOException {
-    Path f = write("shape.yaml", """
-        apiVersion: apps/v1
-        kind: Deployment
-        metadata: {name: odd}
-        spec:
-          template:
+    Path f =
+        write(
+            "shape.yaml",
+            """
+            apiVersion: apps/v1
+            kind: Deployment
+            metadata: {name: odd}
             spec:
-              containers:
-                web: {image: example.invalid/app:1}
-        """);
-    assertEquals(List.of(f + ":8: error: default/Deployment/odd: spec.template.spec.containers"
-        + " expects a list, got a mapping"), messages(read(f), Severity.ERROR));
+              template:
+                spec:
+                  containers:
+                    web: {image: example.invalid/app:1}
+            """);
+    assertEquals(
+        List.of(
+            f
+                + ":8: error: default/Deployment/odd: spec.template.spec.containers"
+                + " expects a list, got a mapping"),
+        messages(read(f), Severity.ERROR));
   }
 
   @Test
   void read_autoscalerWithoutTarget_noteAndIgnored() throws IOException {
-    Path f = write("lonely.yaml", """
-        apiVersion: autoscaling/v2
-        kind: HorizontalPodAutoscaler
-        metadata: {name: lonely, namespace: shop}
-        spec:
-          scaleTargetRef: {apiVersion: apps/v1, kind: Deployment, name: gone}
-          maxReplicas: 4
-        """);
+    Path f =
+        write(
+            "lonely.yaml",
+            """
+            apiVersion: autoscaling/v2
+            kind: HorizontalPodAutoscaler
+            metadata: {name: lonely, namespace: shop}
+            spec:
+              scaleTargetRef: {apiVersion: apps/v1, kind: Deployment, name: gone}
+              maxReplicas: 4
+            """);
     Demand d = read(f);
-    assertEquals(List.of(f + ":2: note: HorizontalPodAutoscaler shop/lonely targets Deployment gone,"
-        + " which is not a Deployment, ReplicaSet, StatefulSet or ReplicationController in the"
-        + " input; ignored"), messages(d, Severity.NOTE));
+    assertEquals(
+        List.of(
+            f
+                + ":2: note: HorizontalPodAutoscaler shop/lonely targets Deployment gone, which is"
+                + " not a Deployment, ReplicaSet, StatefulSet or ReplicationController in the"
+                + " input; ignored"),
+        messages(d, Severity.NOTE));
   }
 
   @Test
   void read_stdinYaml_shownAsStdin() {
     String yaml = pod("piped", "requests: {cpu: 250m}");
-    Demand d = new ManifestReader().read(List.of("-"),
-        new ByteArrayInputStream(yaml.getBytes(StandardCharsets.UTF_8)), ReadOptions.defaults());
+    Demand d =
+        new ManifestReader()
+            .read(
+                List.of("-"),
+                new ByteArrayInputStream(yaml.getBytes(StandardCharsets.UTF_8)),
+                ReadOptions.defaults());
     assertEquals("<stdin>:2", workload(d, "default/Pod/piped").source().toString());
   }
 
@@ -736,16 +873,22 @@ class ManifestReaderTest {
   void read_autoscalerMaxZeroWithoutMin_errorBecauseMinDefaultsToOne() throws IOException {
     // FACTS check value 20 (HPA API reference, K20): unset minReplicas is 1, and maxReplicas must
     // be at least minReplicas, so maxReplicas 0 without minReplicas is invalid.
-    Path f = write("zero.yaml", """
-        apiVersion: autoscaling/v2
-        kind: HorizontalPodAutoscaler
-        metadata: {name: zero}
-        spec:
-          scaleTargetRef: {kind: Deployment, name: web}
-          maxReplicas: 0
-        """);
-    assertEquals(List.of(f + ":6: error: default/HorizontalPodAutoscaler/zero: spec.maxReplicas 0 is"
-        + " below minReplicas 1 (the default) (expected maxReplicas >= minReplicas)"),
+    Path f =
+        write(
+            "zero.yaml",
+            """
+            apiVersion: autoscaling/v2
+            kind: HorizontalPodAutoscaler
+            metadata: {name: zero}
+            spec:
+              scaleTargetRef: {kind: Deployment, name: web}
+              maxReplicas: 0
+            """);
+    assertEquals(
+        List.of(
+            f
+                + ":6: error: default/HorizontalPodAutoscaler/zero: spec.maxReplicas 0 is"
+                + " below minReplicas 1 (the default) (expected maxReplicas >= minReplicas)"),
         messages(read(f), Severity.ERROR));
   }
 }
