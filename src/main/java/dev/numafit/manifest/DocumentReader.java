@@ -51,7 +51,7 @@ final class DocumentReader {
       Consumer<LocatedDocument> sink,
       List<Diagnostic> diagnostics) {
     Outcome outcome = new Outcome();
-    String[] lines = text.split("\n", -1);
+    String[] lines = null; // split only when an error needs the next document separator
     int offset = 0; // lines skipped before the current parser's input
     String rest = text;
     while (rest != null) {
@@ -75,6 +75,9 @@ final class DocumentReader {
                 new SourceRef(file, Math.max(errorLine, 0)),
                 (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, offset)));
         if (!asJson) {
+          if (lines == null) {
+            lines = text.split("\n", -1);
+          }
           // Resume at the next document separator after the error, if any.
           for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
             if (lines[i].startsWith("---")) {

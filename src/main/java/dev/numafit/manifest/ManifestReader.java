@@ -761,10 +761,13 @@ public final class ManifestReader {
       Map<String, List<Autoscaler>> byTarget = new TreeMap<>();
       for (Autoscaler a : autoscalers.values()) {
         String target = a.namespace() + "/" + a.targetKind() + "/" + a.targetName();
-        boolean hit =
-            workloads.values().stream()
-                .anyMatch(c -> c.scalable() && c.id().toString().equals(target));
-        if (!hit) {
+        Candidate hit = workloads.get(target);
+        if (hit == null || !hit.scalable()) {
+          String why =
+              customs.containsKey(target)
+                  ? ", a custom resource: its replica count stays a guess"
+                  : ", which is not a Deployment, ReplicaSet, StatefulSet or"
+                      + " ReplicationController in the input";
           diags.add(
               Diagnostic.note(
                   a.source(),
@@ -774,8 +777,8 @@ public final class ManifestReader {
                       + a.targetKind()
                       + " "
                       + a.targetName()
-                      + ", which is not a Deployment, ReplicaSet, StatefulSet or"
-                      + " ReplicationController in the input; ignored"));
+                      + why
+                      + "; ignored"));
           continue;
         }
         byTarget.computeIfAbsent(target, t -> new ArrayList<>()).add(a);

@@ -891,4 +891,30 @@ class ManifestReaderTest {
                 + " below minReplicas 1 (the default) (expected maxReplicas >= minReplicas)"),
         messages(read(f), Severity.ERROR));
   }
+
+  @Test
+  void read_twoAutoscalersOneTarget_largestMaxWithWarning() throws IOException {
+    String second =
+        """
+        ---
+        apiVersion: autoscaling/v2
+        kind: HorizontalPodAutoscaler
+        metadata: {name: storefront-burst, namespace: shop}
+        spec:
+          scaleTargetRef: {kind: Deployment, name: storefront}
+          maxReplicas: 25
+        """;
+    Path f = write("two.yaml", AUTOSCALED + second);
+    Demand d = read(f);
+    assertEquals(
+        new Replicas(2, 25, "HorizontalPodAutoscaler shop/storefront-burst maxReplicas"),
+        workload(d, "shop/Deployment/storefront").replicas());
+    assertEquals(
+        List.of(
+            f
+                + ":2: warning: shop/Deployment/storefront is the target of 2"
+                + " HorizontalPodAutoscalers; the largest maxReplicas (shop/storefront-burst) is"
+                + " used"),
+        messages(d, Severity.WARNING));
+  }
 }
