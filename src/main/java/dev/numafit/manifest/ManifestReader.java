@@ -67,7 +67,9 @@ public final class ManifestReader {
   public static final String STDIN = "<stdin>";
 
   private static final String GUESS_FLAG = "sized from a custom resource: a guess";
-  private final KubernetesSerialization k8s = new KubernetesSerialization();
+  // Shared: its deserializer cache is costly to build and safe to use from any thread.
+  private static final KubernetesSerialization K8S = new KubernetesSerialization();
+  private final KubernetesSerialization k8s = K8S;
   private final DocumentReader documents = new DocumentReader();
 
   /**
