@@ -60,8 +60,10 @@ final class Errors
       ii.diagnostics().forEach(console::report);
       long n = ii.diagnostics().stream()
           .filter(d -> d.severity() == dev.numafit.diag.Severity.ERROR).count();
-      console.err().println(n + (n == 1 ? " error" : " errors")
-          + " in the input; fix them, or use --skip-invalid to leave the invalid documents out.");
+      console.err().println(n + (n == 1 ? " error" : " errors") + " in the input"
+          + (ii.skippable()
+              ? "; fix them, or use --skip-invalid to leave the invalid documents out."
+              : "."));
     } else if (ex instanceof OutputException oe) {
       console.error(oe.getMessage());
     } else {

@@ -54,8 +54,9 @@ final class Pipeline {
   private Pipeline() {}
 
   static int demand(DemandOptions o, Console console) {
+    checkPathsExist(o.files());
     Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
-    List<Diagnostic> shown = checkInput(demand.diagnostics(), o.skipInvalid(), console);
+    List<Diagnostic> shown = checkInput(demand.diagnostics(), List.of(), o.skipInvalid());
     DemandReport report = new DemandReport(demand, shown);
     ReportWriter<DemandReport> writer =
         o.format() == ReportFormat.JSON ? new DemandJsonWriter() : new DemandTextWriter();
@@ -67,10 +68,12 @@ final class Pipeline {
   }
 
   static int plan(PlanOptions o, Console console) throws InputException {
+    checkPathsExist(o.files());
     Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
-    List<Diagnostic> warnings = new ArrayList<>(checkInput(demand.diagnostics(), o.skipInvalid(),
-        console));
-    Map<Path, ProfileLoad> profiles = readProfiles(o.hostProfiles());
+    List<Diagnostic> profileErrors = new ArrayList<>();
+    Map<Path, ProfileLoad> profiles = readProfiles(o.hostProfiles(), profileErrors);
+    List<Diagnostic> warnings =
+        new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
     ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
     Planner planner = new Planner();
     List<Plan> plans = new ArrayList<>();
@@ -182,24 +185,41 @@ final class Pipeline {
   }
 
   /**
-   * Stops with every diagnostic (exit 2) when the input has errors and --skip-invalid is not
-   * given; otherwise returns what the report shows: warnings and notes, plus the skipped errors.
+   * Stops with every diagnostic (exit 2) when a host profile is invalid, or when the manifests
+   * have errors and --skip-invalid is not given; otherwise returns what the report shows: warnings
+   * and notes, plus the skipped errors.
    */
   private static List<Diagnostic> checkInput(
-      List<Diagnostic> diagnostics, boolean skipInvalid, Console console) {
-    boolean errors = diagnostics.stream().anyMatch(d -> d.severity() == Severity.ERROR);
-    if (errors && !skipInvalid) {
-      List<Diagnostic> sorted = new ArrayList<>(diagnostics);
-      sorted.sort(null);
-      throw new InvalidInput(sorted);
+      List<Diagnostic> diagnostics, List<Diagnostic> profileErrors, boolean skipInvalid) {
+    boolean manifestErrors = diagnostics.stream().anyMatch(d -> d.severity() == Severity.ERROR);
+    if (!profileErrors.isEmpty() || (manifestErrors && !skipInvalid)) {
+      List<Diagnostic> all = new ArrayList<>(diagnostics);
+      all.addAll(profileErrors);
+      all.sort(null);
+      throw new InvalidInput(all, manifestErrors && !skipInvalid);
     }
     return diagnostics;
   }
 
-  /** Reads every profile, collecting the errors of all of them before giving up. */
-  private static Map<Path, ProfileLoad> readProfiles(List<Path> paths) throws InputException {
+  /**
+   * A path that does not exist is a usage error whatever --skip-invalid says: the user meant
+   * another path.
+   */
+  private static void checkPathsExist(List<String> files) {
+    List<String> problems = new ArrayList<>();
+    for (String f : files) {
+      if (!f.equals("-") && !Files.exists(Path.of(f))) {
+        problems.add("-f " + f + ": no such file or folder");
+      }
+    }
+    if (!problems.isEmpty()) {
+      throw new UsageException(problems);
+    }
+  }
+
+  /** Reads every profile, collecting the errors of all of them. */
+  private static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
     Map<Path, ProfileLoad> loads = new LinkedHashMap<>();
-    List<Diagnostic> errors = new ArrayList<>();
     HostProfileReader reader = new HostProfileReader();
     for (Path p : paths) {
       try {
@@ -207,9 +227,6 @@ final class Pipeline {
       } catch (InputException ex) {
         errors.addAll(ex.diagnostics());
       }
-    }
-    if (!errors.isEmpty()) {
-      throw new InputException(errors);
     }
     return loads;
   }

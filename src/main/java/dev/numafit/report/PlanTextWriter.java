@@ -87,9 +87,11 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
       sb.append("  Oversize pods (not packed; each needs a worker wider than one NUMA node):\n");
       for (Oversize x : p.oversize()) {
         String fits =
-            x.smallestShape().equals("none")
-                ? "larger than a whole host"
-                : "smallest shape that holds it: " + x.smallestShape();
+            !x.smallestShape().equals("none")
+                ? "smallest shape that holds it: " + x.smallestShape()
+                : p.hostProfile().isPresent()
+                    ? "larger than a whole host"
+                    : "no larger shape known (give a --host-profile to compare)";
         sb.append(
             TextSupport.wrap(
                 "    " + x.workload() + ": ",
