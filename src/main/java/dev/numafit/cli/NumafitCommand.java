@@ -25,7 +25,7 @@ import picocli.CommandLine.Spec;
     footerHeading = "%nExamples:%n",
     footer = {
       "  numafit plan -f manifests-examples/parcel-delivery/ \\",
-      "      --host-profile host-profiles/two-socket-one-node-each.yaml",
+      "      --host-profile host-profiles/two-socket-one-node-per-socket.yaml",
       "  numafit demand -f manifests-examples/ticket-office/ -o json",
       "  numafit help plan",
       "",

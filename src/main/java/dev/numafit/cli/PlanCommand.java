@@ -27,7 +27,7 @@ import picocli.CommandLine.ParentCommand;
     footerHeading = "%nExamples:%n",
     footer = {
       "  numafit plan -f manifests-examples/parcel-delivery/ \\",
-      "      --host-profile host-profiles/two-socket-one-node-each.yaml",
+      "      --host-profile host-profiles/two-socket-one-node-per-socket.yaml",
       "  numafit plan -f app.yaml -f infra/ --worker cpu=16,memory=64Gi -o json",
       "  render-manifests | numafit plan -f - --worker cpu=8,memory=32Gi",
       "  numafit plan -f manifests/ --host-profile a.yaml --host-profile b.yaml \\",

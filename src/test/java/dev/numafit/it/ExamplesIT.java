@@ -25,8 +25,8 @@ import tools.jackson.databind.json.JsonMapper;
 class ExamplesIT {
   static final String PARCEL = "manifests-examples/parcel-delivery/";
   static final String TICKETS = "manifests-examples/ticket-office/";
-  static final String TWO_SOCKET = "host-profiles/two-socket-one-node-each.yaml";
-  static final String FOUR_NODE = "host-profiles/two-socket-four-nodes-each.yaml";
+  static final String TWO_SOCKET = "host-profiles/two-socket-one-node-per-socket.yaml";
+  static final String FOUR_NODE = "host-profiles/two-socket-four-nodes-per-socket.yaml";
   static final String EMPTY_CHANNEL = "host-profiles/one-socket-empty-channel.yaml";
 
   @Test
