@@ -194,8 +194,10 @@ public final class HostCapture {
         warnings.add(
             Diagnostic.warning(
                 sys == null ? null : new SourceRef(sys.source().file() + "/meminfo", 1),
-                "node " + i + " has " + p.cpus().size() + " CPUs but no memory: a worker there"
-                    + " would run on another node's memory, so it cannot hold a one-node worker"));
+                "node " + p.sourceId() + " has " + p.cpus().size() + " CPUs but no memory: a"
+                    + " worker there would run on another node's memory, so it cannot hold a"
+                    + " one-node worker; left out of the profile with its "
+                    + coreThreads.get(i)[0] + " cores"));
       }
       nodes.add(
           new CapturedNode(
@@ -212,8 +214,53 @@ public final class HostCapture {
               mapped && nodesPerSocket == 1));
     }
 
+    // A node with CPUs but no memory cannot hold a one-node worker, and a profile node needs
+    // memory: leave it out, renumbering the rest, and say so.
+    List<Integer> kept = new ArrayList<>();
+    for (int i = 0; i < nodes.size(); i++) {
+      if (nodes.get(i).memoryBytes() > 0) {
+        kept.add(i);
+      }
+    }
+    if (kept.isEmpty()) {
+      throw new IllegalArgumentException(
+          "no NUMA node with CPUs has memory: nothing a worker could run on");
+    }
+    if (kept.size() < nodes.size()) {
+      List<CapturedNode> renumbered = new ArrayList<>();
+      List<Pending> keptPending = new ArrayList<>();
+      for (int i : kept) {
+        CapturedNode n = nodes.get(i);
+        renumbered.add(
+            new CapturedNode(renumbered.size(), n.sourceId(), n.socket(), n.cpus(), n.cores(),
+                n.threadsPerCore(), n.memoryBytes(), n.memorySource(), n.hugepages(), n.channels(),
+                n.channelsConfirmed()));
+        keptPending.add(pending.get(i));
+      }
+      nodes = renumbered;
+      pending = keptPending;
+      // Sockets are renumbered 0.. over the nodes kept.
+      List<Integer> socketIds = nodes.stream().map(CapturedNode::socket).distinct().sorted().toList();
+      List<CapturedNode> resocketed = new ArrayList<>();
+      for (CapturedNode n : nodes) {
+        resocketed.add(
+            new CapturedNode(n.id(), n.sourceId(), socketIds.indexOf(n.socket()), n.cpus(),
+                n.cores(), n.threadsPerCore(), n.memoryBytes(), n.memorySource(), n.hugepages(),
+                n.channels(), n.channelsConfirmed()));
+      }
+      nodes = resocketed;
+      sockets = socketIds.size();
+      SortedMap<Integer, Integer> perSocket = new TreeMap<>();
+      nodes.forEach(n -> perSocket.merge(n.socket(), 1, Integer::sum));
+      nodesPerSocket = perSocket.values().stream().mapToInt(Integer::intValue).max().orElse(1);
+      int threads = nodes.stream().mapToInt(CapturedNode::threadsPerCore).min().orElse(1);
+      hostThreads = threads;
+    }
+
     Optional<List<List<Integer>>> distances = Optional.empty();
-    if (!sysNodes.isEmpty() && pending.stream().allMatch(p -> sysNodes.containsKey(p.sourceId()))) {
+    if (!sysNodes.isEmpty()
+        && pending.stream().allMatch(p -> sysNodes.containsKey(p.sourceId()))
+        && sysNodes.values().stream().allMatch(n -> n.distances().size() == sysNodes.size())) {
       List<Integer> order = List.copyOf(sysNodes.keySet());
       List<List<Integer>> m = new ArrayList<>();
       for (Pending p : pending) {
@@ -246,6 +293,19 @@ public final class HostCapture {
             .min()
             .orElse(0);
 
+    warnings.add(
+        Diagnostic.warning(
+            null,
+            "hypervisor reserve to confirm: a capture cannot read it; the profile holds the"
+                + " default reservedMemory "
+                + gib(CaptureDefaults.reservedMemoryBytes(
+                    nodes.stream().mapToLong(CapturedNode::memoryBytes).sum()))
+                + " and reservedCores " + CaptureDefaults.RESERVED_CORES));
+    warnings.add(
+        Diagnostic.warning(
+            null,
+            "per-VM overhead to confirm: a capture cannot read it; the profile holds the default "
+                + gib(CaptureDefaults.PER_VM_OVERHEAD_BYTES)));
     return new CapturedHost(
         sockets,
         nodesPerSocket,
