@@ -1,0 +1,179 @@
+package dev.numafit.manifest;
+
+import dev.numafit.diag.Diagnostic;
+import dev.numafit.diag.SourceRef;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Consumer;
+import org.snakeyaml.engine.v2.exceptions.MarkedYamlEngineException;
+import tools.jackson.core.JacksonException;
+import tools.jackson.core.JsonParser;
+import tools.jackson.core.JsonToken;
+import tools.jackson.core.TokenStreamLocation;
+import tools.jackson.databind.DeserializationFeature;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.json.JsonMapper;
+import tools.jackson.databind.node.ArrayNode;
+import tools.jackson.databind.node.JsonNodeFactory;
+import tools.jackson.databind.node.ObjectNode;
+import tools.jackson.dataformat.yaml.YAMLMapper;
+
+/**
+ * Splits one file's text into documents (multi-document YAML, or JSON values back to back) and
+ * builds each as a Jackson tree while recording the line of every value. A malformed document
+ * becomes an error and reading resumes at the next {@code ---} line, so one bad document does not
+ * hide the rest of the file.
+ */
+final class DocumentReader {
+  private static final JsonNodeFactory NODES = JsonNodeFactory.instance;
+
+  private final YAMLMapper yaml =
+      YAMLMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+  private final JsonMapper json =
+      JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+
+  /** What reading one file produced besides its documents. */
+  static final class Outcome {
+    int emptyDocuments;
+  }
+
+  /**
+   * Reads {@code text}; documents go to {@code sink}, problems to {@code diagnostics}.
+   *
+   * @param asJson parse as JSON (several values may follow each other) instead of YAML
+   */
+  Outcome read(
+      String file,
+      String text,
+      boolean asJson,
+      Consumer<LocatedDocument> sink,
+      List<Diagnostic> diagnostics) {
+    Outcome outcome = new Outcome();
+    String[] lines = text.split("\n", -1);
+    int offset = 0; // lines skipped before the current parser's input
+    String rest = text;
+    while (rest != null) {
+      String next = null;
+      try (JsonParser p = asJson ? json.createParser(rest) : yaml.createParser(rest)) {
+        JsonToken t;
+        while ((t = p.nextToken()) != null) {
+          int start = offset + line(p.currentTokenLocation());
+          if (t == JsonToken.VALUE_NULL) {
+            outcome.emptyDocuments++;
+            continue;
+          }
+          Map<String, Integer> positions = new HashMap<>();
+          JsonNode root = build(p, t, "", positions, offset);
+          sink.accept(new LocatedDocument(file, root, positions, start));
+        }
+      } catch (JacksonException e) {
+        int errorLine = offset + errorLine(e);
+        diagnostics.add(
+            Diagnostic.error(
+                new SourceRef(file, Math.max(errorLine, 0)),
+                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, asJson)));
+        if (!asJson) {
+          // Resume at the next document separator after the error, if any.
+          for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
+            if (lines[i].startsWith("---")) {
+              next = String.join("\n", java.util.Arrays.copyOfRange(lines, i, lines.length));
+              offset = i;
+              break;
+            }
+          }
+        }
+      }
+      rest = next;
+    }
+    return outcome;
+  }
+
+  private static int line(TokenStreamLocation loc) {
+    return loc == null ? 0 : Math.max(loc.getLineNr(), 0);
+  }
+
+  private JsonNode build(
+      JsonParser p, JsonToken t, String pointer, Map<String, Integer> positions, int offset) {
+    positions.put(pointer, offset + line(p.currentTokenLocation()));
+    switch (t) {
+      case START_OBJECT:
+        {
+          ObjectNode o = NODES.objectNode();
+          JsonToken n;
+          while ((n = p.nextToken()) == JsonToken.PROPERTY_NAME) {
+            String name = p.currentName();
+            String child = pointer + "/" + LocatedDocument.segment(name);
+            JsonToken v = p.nextToken();
+            o.set(name, build(p, v, child, positions, offset));
+          }
+          return o;
+        }
+      case START_ARRAY:
+        {
+          ArrayNode a = NODES.arrayNode();
+          JsonToken n;
+          int i = 0;
+          while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
+            a.add(build(p, n, pointer + "/" + i, positions, offset));
+            i++;
+          }
+          return a;
+        }
+      case VALUE_STRING:
+        return NODES.stringNode(p.getString());
+      case VALUE_NUMBER_INT:
+        return intNode(p);
+      case VALUE_NUMBER_FLOAT:
+        // Keep the text as written: "0.5" or "129e6" must reach the Quantity parser unchanged.
+        return NODES.stringNode(p.getString());
+      case VALUE_TRUE:
+        return NODES.booleanNode(true);
+      case VALUE_FALSE:
+        return NODES.booleanNode(false);
+      case VALUE_NULL:
+        return NODES.nullNode();
+      default:
+        return NODES.stringNode(p.getString());
+    }
+  }
+
+  private static JsonNode intNode(JsonParser p) {
+    java.math.BigInteger v = p.getBigIntegerValue();
+    if (v.bitLength() < 32) {
+      return NODES.numberNode(v.intValue());
+    }
+    if (v.bitLength() < 64) {
+      return NODES.numberNode(v.longValue());
+    }
+    return NODES.numberNode(v);
+  }
+
+  private static int errorLine(JacksonException e) {
+    for (Throwable c = e; c != null; c = c.getCause()) {
+      if (c instanceof MarkedYamlEngineException m && m.getProblemMark().isPresent()) {
+        return m.getProblemMark().get().getLine() + 1;
+      }
+    }
+    return line(e.getLocation());
+  }
+
+  private static String problem(JacksonException e, boolean asJson) {
+    for (Throwable c = e; c != null; c = c.getCause()) {
+      if (c instanceof MarkedYamlEngineException m) {
+        String problem = m.getProblem() == null ? "" : m.getProblem();
+        problem = problem.replace("'\\t(TAB)'", "a tab").replace("\\t(TAB)", "tabs");
+        if (problem.contains("tab")) {
+          return problem + " (YAML indents with spaces only)";
+        }
+        String context = m.getContext();
+        return context == null || context.isBlank()
+            ? problem
+            : problem + " (" + context.trim() + ")";
+      }
+    }
+    String msg = e.getOriginalMessage();
+    int nl = msg == null ? -1 : msg.indexOf('\n');
+    return nl < 0 ? String.valueOf(msg) : msg.substring(0, nl);
+  }
+}

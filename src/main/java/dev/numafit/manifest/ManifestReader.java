@@ -1,0 +1,778 @@
+package dev.numafit.manifest;
+
+import dev.numafit.demand.Admission;
+import dev.numafit.demand.Demand;
+import dev.numafit.demand.EffectivePod;
+import dev.numafit.demand.LimitDefaults;
+import dev.numafit.demand.PodArithmetic;
+import dev.numafit.demand.PodModel;
+import dev.numafit.demand.ReplicaRules;
+import dev.numafit.demand.Replicas;
+import dev.numafit.demand.Workload;
+import dev.numafit.demand.WorkloadId;
+import dev.numafit.diag.Diagnostic;
+import dev.numafit.diag.SourceRef;
+import io.fabric8.kubernetes.api.model.LimitRange;
+import io.fabric8.kubernetes.api.model.LimitRangeItem;
+import io.fabric8.kubernetes.api.model.Pod;
+import io.fabric8.kubernetes.api.model.PodSpec;
+import io.fabric8.kubernetes.api.model.PodTemplateSpec;
+import io.fabric8.kubernetes.api.model.ReplicationController;
+import io.fabric8.kubernetes.api.model.apps.DaemonSet;
+import io.fabric8.kubernetes.api.model.apps.Deployment;
+import io.fabric8.kubernetes.api.model.apps.ReplicaSet;
+import io.fabric8.kubernetes.api.model.apps.StatefulSet;
+import io.fabric8.kubernetes.api.model.autoscaling.v2.HorizontalPodAutoscaler;
+import io.fabric8.kubernetes.api.model.batch.v1.CronJob;
+import io.fabric8.kubernetes.api.model.batch.v1.Job;
+import io.fabric8.kubernetes.api.model.batch.v1.JobSpec;
+import io.fabric8.kubernetes.api.model.node.v1.RuntimeClass;
+import io.fabric8.kubernetes.client.utils.KubernetesSerialization;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.math.BigDecimal;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Collection;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.SortedMap;
+import java.util.TreeMap;
+import java.util.stream.Stream;
+import tools.jackson.core.JacksonException;
+import tools.jackson.databind.DatabindException;
+import tools.jackson.databind.JsonNode;
+import tools.jackson.databind.exc.MismatchedInputException;
+
+/**
+ * Reads Kubernetes manifests (files, directories, standard input) into {@link Demand}: one {@link
+ * Workload} per pod-bearing object with Kubernetes' own request arithmetic applied (limits-only
+ * defaulting, LimitRange defaults, RuntimeClass overhead, sidecar ordering, pod-level resources) and
+ * its replica count (HorizontalPodAutoscaler peaks, Job parallelism, DaemonSets per worker).
+ *
+ * <p>It never throws for bad input: each problem is a {@link Diagnostic} in {@link
+ * Demand#diagnostics()}, an invalid object is left out with an error, and everything valid is still
+ * read. Output order is fixed (workloads by id, diagnostics by place), so the same input gives the
+ * same result.
+ */
+public final class ManifestReader {
+  /** How standard input is shown in messages. */
+  public static final String STDIN = "<stdin>";
+
+  private static final String GUESS_FLAG = "sized from a custom resource: a guess";
+  private final KubernetesSerialization k8s = new KubernetesSerialization();
+  private final DocumentReader documents = new DocumentReader();
+
+  /**
+   * Reads every path in order.
+   *
+   * @param paths files ({@code .yaml}, {@code .yml}, {@code .json}), directories (read recursively
+   *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
+   */
+  public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
+    Session s = new Session(opts);
+    boolean stdinRead = false;
+    for (String path : paths) {
+      if ("-".equals(path)) {
+        if (stdinRead) {
+          s.diags.add(Diagnostic.warning(new SourceRef(STDIN, 0),
+              "standard input given twice; read once"));
+          continue;
+        }
+        stdinRead = true;
+        s.readStdin(stdin);
+        continue;
+      }
+      s.readPath(path);
+    }
+    return s.finish();
+  }
+
+  /** A pod-bearing object waiting for namespace-wide rules (LimitRange, RuntimeClass, HPA). */
+  private record Candidate(
+      WorkloadId id,
+      SourceRef source,
+      PodModel pod,
+      Replicas replicas,
+      boolean perWorker,
+      boolean custom,
+      boolean scalable) {}
+
+  private record Autoscaler(
+      String label, String namespace, String targetKind, String targetName, int maxReplicas,
+      SourceRef source) {}
+
+  private record NamedLimits(String name, LimitDefaults defaults) {}
+
+  private record Overhead(SortedMap<String, BigDecimal> podFixed, SourceRef source) {}
+
+  /** State of one {@link #read} call. */
+  private final class Session {
+    final ReadOptions opts;
+    final List<Diagnostic> diags = new ArrayList<>();
+    final Map<String, SourceRef> seen = new LinkedHashMap<>();
+    final Map<String, Candidate> workloads = new LinkedHashMap<>();
+    final Map<String, List<Candidate>> customs = new LinkedHashMap<>();
+    final Map<String, Autoscaler> autoscalers = new LinkedHashMap<>();
+    final Map<String, Map<String, NamedLimits>> limitRanges = new TreeMap<>();
+    final Map<String, Overhead> runtimeClasses = new TreeMap<>();
+    final Map<String, String> skipped = new LinkedHashMap<>();
+    int unnamed;
+
+    Session(ReadOptions opts) {
+      this.opts = opts;
+    }
+
+    void readStdin(InputStream in) {
+      String text;
+      try {
+        text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+      } catch (IOException e) {
+        diags.add(Diagnostic.error(new SourceRef(STDIN, 0),
+            "cannot read standard input: " + e.getMessage()));
+        return;
+      }
+      String t = text.stripLeading();
+      boolean looksJson = t.startsWith("{") || t.startsWith("[");
+      if (looksJson) {
+        // A JSON stream may be two objects back to back, which is not YAML; try JSON first and
+        // fall back to YAML (flow-style YAML also starts with a brace).
+        List<Diagnostic> jsonDiags = new ArrayList<>();
+        List<LocatedDocument> docs = new ArrayList<>();
+        DocumentReader.Outcome o = documents.read(STDIN, text, true, docs::add, jsonDiags);
+        if (jsonDiags.isEmpty()) {
+          finishText(STDIN, text, docs, o, jsonDiags);
+          return;
+        }
+      }
+      readText(STDIN, text, false);
+    }
+
+    void readPath(String path) {
+      Path p;
+      try {
+        p = Path.of(path);
+      } catch (InvalidPathException e) {
+        diags.add(Diagnostic.error(new SourceRef(path, 0), "not a valid path: " + e.getReason()));
+        return;
+      }
+      if (!Files.exists(p)) {
+        diags.add(Diagnostic.error(new SourceRef(path, 0),
+            "no such file or directory (expected a .yaml, .yml or .json file, a directory,"
+                + " or - for standard input)"));
+        return;
+      }
+      if (Files.isDirectory(p)) {
+        List<String> files = new ArrayList<>();
+        try (Stream<Path> walk = Files.walk(p)) {
+          walk.filter(Files::isRegularFile)
+              .filter(f -> isManifest(f) && !hidden(p, f))
+              .map(f -> f.toString())
+              .sorted()
+              .forEach(files::add);
+        } catch (IOException | UncheckedIOException e) {
+          diags.add(Diagnostic.error(new SourceRef(path, 0),
+              "cannot list directory: " + e.getMessage()));
+          return;
+        }
+        if (files.isEmpty()) {
+          diags.add(Diagnostic.warning(new SourceRef(path, 0),
+              "no .yaml, .yml or .json files in this directory"));
+        }
+        files.forEach(f -> readFile(Path.of(f), f));
+        return;
+      }
+      readFile(p, path);
+    }
+
+    void readFile(Path p, String shown) {
+      String text;
+      try {
+        byte[] bytes = Files.readAllBytes(p);
+        text = StandardCharsets.UTF_8.newDecoder()
+            .decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+      } catch (CharacterCodingException e) {
+        diags.add(Diagnostic.error(new SourceRef(shown, 0),
+            "not UTF-8 text (expected a YAML or JSON manifest)"));
+        return;
+      } catch (IOException e) {
+        diags.add(Diagnostic.error(new SourceRef(shown, 0), "cannot read: " + e.getMessage()));
+        return;
+      }
+      boolean json = shown.toLowerCase(Locale.ROOT).endsWith(".json");
+      readText(shown, text, json);
+    }
+
+    void readText(String file, String text, boolean json) {
+      List<LocatedDocument> docs = new ArrayList<>();
+      if (text.startsWith("\uFEFF")) {
+        text = text.substring(1);
+      }
+      if (text.isBlank()) {
+        diags.add(Diagnostic.warning(new SourceRef(file, 0), "empty file"));
+        return;
+      }
+      List<Diagnostic> fileDiags = new ArrayList<>();
+      DocumentReader.Outcome o = documents.read(file, text, json, docs::add, fileDiags);
+      finishText(file, text, docs, o, fileDiags);
+    }
+
+    void finishText(String file, String text, List<LocatedDocument> docs,
+        DocumentReader.Outcome o, List<Diagnostic> fileDiags) {
+      diags.addAll(fileDiags);
+      if (o.emptyDocuments > 0) {
+        diags.add(Diagnostic.note(new SourceRef(file, 0), "skipped " + o.emptyDocuments
+            + (o.emptyDocuments == 1 ? " empty or comment-only document"
+                : " empty or comment-only documents")));
+      }
+      docs.forEach(this::document);
+    }
+
+    void document(LocatedDocument doc) {
+      JsonNode root = doc.root();
+      String kind = text(root.get("kind"));
+      if (!root.isObject() || kind == null || kind.isBlank()) {
+        diags.add(Diagnostic.note(new SourceRef(doc.file(), doc.startLine()),
+            "not a Kubernetes object (no kind), skipped"));
+        return;
+      }
+      JsonNode items = root.get("items");
+      if (kind.endsWith("List") && items != null && (items.isArray() || items.isNull())) {
+        String itemKind = kind.equals("List") ? null : kind.substring(0, kind.length() - 4);
+        if (items.isArray()) {
+          for (int i = 0; i < items.size(); i++) {
+            String ptr = "/items/" + i;
+            JsonNode item = items.get(i);
+            String k = text(item.get("kind"));
+            if (!item.isObject() || (k == null && itemKind == null)) {
+              diags.add(Diagnostic.note(new SourceRef(doc.file(), doc.line(ptr)),
+                  "list item is not a Kubernetes object (no kind), skipped"));
+              continue;
+            }
+            object(doc, ptr, item, k == null ? itemKind : k);
+          }
+        }
+        return;
+      }
+      object(doc, "", root, kind);
+    }
+
+    void object(LocatedDocument doc, String ptr, JsonNode node, String kind) {
+      String apiVersion = text(node.get("apiVersion"));
+      JsonNode meta = node.path("metadata");
+      String namespace = text(meta.get("namespace"));
+      if (namespace == null || namespace.isBlank()) {
+        namespace = "default";
+      }
+      String name = text(meta.get("name"));
+      boolean named = name != null && !name.isBlank();
+      if (!named) {
+        String generate = text(meta.get("generateName"));
+        name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
+      }
+      WorkloadId id = new WorkloadId(namespace, kind, name);
+      int kindLine = doc.lines().getOrDefault(ptr + "/kind", doc.line(ptr));
+      SourceRef source = new SourceRef(doc.file(), kindLine);
+      String key = named ? id.toString() : id + "@" + source + "#" + (unnamed++);
+      ObjectContext ctx = new ObjectContext(doc, id.toString());
+
+      Optional<KnownKind> known = KnownKind.of(kind);
+      if (known.isPresent()) {
+        KnownKind k = known.get();
+        if (apiVersion == null || apiVersion.isBlank()) {
+          diags.add(Diagnostic.warning(source, id + ": no apiVersion; read as " + k.current));
+        } else if (k.older.contains(apiVersion)) {
+          diags.add(Diagnostic.note(source, id + ": old apiVersion " + apiVersion
+              + " (now " + k.current + "); read with the current schema"));
+        } else if (!k.isCurrent(apiVersion)) {
+          diags.add(Diagnostic.warning(source, id + ": unknown apiVersion " + apiVersion
+              + " for " + kind + " (expected " + k.current + "); read as " + k.current));
+        }
+        boolean ok = known(k, node, ptr, id, source, key, ctx);
+        if (!ctx.errors.isEmpty()) {
+          diags.addAll(ctx.errors);
+          return;
+        }
+        if (ok) {
+          duplicate(key, source, id);
+        }
+        return;
+      }
+      List<String> templates = new ArrayList<>();
+      findTemplates(node.path("spec"), ptr + "/spec", templates);
+      if (templates.isEmpty()) {
+        if (seen.containsKey(key)) {
+          duplicate(key, source, id);
+        }
+        seen.put(key, source);
+        skipped.put(key, kind);
+        return;
+      }
+      List<Candidate> found = new ArrayList<>();
+      for (String tptr : templates) {
+        PodTemplateSpec template = convert(doc.at(tptr), PodTemplateSpec.class, tptr, ctx);
+        if (template == null) {
+          continue;
+        }
+        PodModel pod = PodSpecs.toModel(template.getSpec(), tptr + "/spec", ctx);
+        String parent = tptr.substring(0, tptr.lastIndexOf('/'));
+        JsonNode replicasNode = doc.at(parent).get("replicas");
+        Replicas replicas;
+        if (replicasNode != null && replicasNode.isIntegralNumber() && replicasNode.asLong() >= 0
+            && replicasNode.canConvertToInt()) {
+          replicas = new Replicas(replicasNode.asInt(), replicasNode.asInt(),
+              "replicas beside the pod template (a guess)");
+        } else {
+          replicas = new Replicas(1, 1, "1 assumed: no replicas beside the pod template (a guess)");
+        }
+        WorkloadId cid = templates.size() == 1 ? id
+            : new WorkloadId(namespace, kind, name + "[" + templateLabel(tptr.substring(ptr.length()))
+                + "]");
+        found.add(new Candidate(cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas,
+            false, true, false));
+      }
+      if (!ctx.errors.isEmpty()) {
+        diags.addAll(ctx.errors);
+        return;
+      }
+      duplicate(key, source, id);
+      customs.put(key, found);
+    }
+
+    /** Reads a kind the tool knows; false when the object is left out. */
+    boolean known(KnownKind k, JsonNode node, String ptr, WorkloadId id, SourceRef source,
+        String key, ObjectContext ctx) {
+      String spec = ptr + "/spec";
+      String template = spec + "/template/spec";
+      switch (k) {
+        case POD -> {
+          Pod o = convert(node, Pod.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
+          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false));
+        }
+        case DEPLOYMENT -> {
+          Deployment o = convert(node, Deployment.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var s = o.getSpec();
+          scalable(key, id, source, s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(), template, spec, ctx);
+        }
+        case REPLICA_SET -> {
+          ReplicaSet o = convert(node, ReplicaSet.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var s = o.getSpec();
+          scalable(key, id, source, s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(), template, spec, ctx);
+        }
+        case STATEFUL_SET -> {
+          StatefulSet o = convert(node, StatefulSet.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var s = o.getSpec();
+          scalable(key, id, source, s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(), template, spec, ctx);
+        }
+        case REPLICATION_CONTROLLER -> {
+          ReplicationController o = convert(node, ReplicationController.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var s = o.getSpec();
+          scalable(key, id, source, s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(), template, spec, ctx);
+        }
+        case DAEMON_SET -> {
+          DaemonSet o = convert(node, DaemonSet.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
+          PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
+          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false));
+        }
+        case JOB -> {
+          Job o = convert(node, Job.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          job(key, id, source, o.getSpec(), spec, ctx);
+        }
+        case CRON_JOB -> {
+          CronJob o = convert(node, CronJob.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var jt = o.getSpec() == null ? null : o.getSpec().getJobTemplate();
+          job(key, id, source, jt == null ? null : jt.getSpec(), spec + "/jobTemplate/spec", ctx);
+        }
+        case HORIZONTAL_POD_AUTOSCALER -> {
+          HorizontalPodAutoscaler o = convert(node, HorizontalPodAutoscaler.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          var s = o.getSpec();
+          if (s == null || s.getMaxReplicas() == null || s.getScaleTargetRef() == null
+              || s.getScaleTargetRef().getKind() == null
+              || s.getScaleTargetRef().getName() == null) {
+            ctx.error(spec, "spec.maxReplicas and spec.scaleTargetRef (kind, name) are required");
+            return false;
+          }
+          if (s.getMaxReplicas() < 0) {
+            ctx.error(spec + "/maxReplicas", "spec.maxReplicas " + s.getMaxReplicas()
+                + " is negative (expected 1 or more)");
+            return false;
+          }
+          autoscalers.put(key, new Autoscaler(id.namespace() + "/" + id.name(), id.namespace(),
+              s.getScaleTargetRef().getKind(), s.getScaleTargetRef().getName(),
+              s.getMaxReplicas(), source));
+        }
+        case LIMIT_RANGE -> {
+          LimitRange o = convert(node, LimitRange.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          LimitDefaults d = LimitDefaults.NONE;
+          List<LimitRangeItem> items =
+              o.getSpec() == null || o.getSpec().getLimits() == null ? List.of()
+                  : o.getSpec().getLimits();
+          for (int i = 0; i < items.size(); i++) {
+            LimitRangeItem item = items.get(i);
+            if (item == null || !"Container".equals(item.getType())) {
+              continue;
+            }
+            String ip = spec + "/limits/" + i;
+            d = d.then(LimitDefaults.fromItem(
+                PodSpecs.quantities(item.getMax(), ip + "/max", "spec.limits[" + i + "].max", ctx),
+                PodSpecs.quantities(item.getMin(), ip + "/min", "spec.limits[" + i + "].min", ctx),
+                PodSpecs.quantities(item.getDefault(), ip + "/default",
+                    "spec.limits[" + i + "].default", ctx),
+                PodSpecs.quantities(item.getDefaultRequest(), ip + "/defaultRequest",
+                    "spec.limits[" + i + "].defaultRequest", ctx)));
+          }
+          limitRanges.computeIfAbsent(id.namespace(), n -> new TreeMap<>())
+              .put(key, new NamedLimits(id.name(), d));
+        }
+        case RUNTIME_CLASS -> {
+          RuntimeClass o = convert(node, RuntimeClass.class, ptr, ctx);
+          if (o == null) {
+            return false;
+          }
+          SortedMap<String, BigDecimal> fixed = new TreeMap<>();
+          if (o.getOverhead() != null) {
+            fixed = PodSpecs.quantities(o.getOverhead().getPodFixed(), ptr + "/overhead/podFixed",
+                "overhead.podFixed", ctx);
+          }
+          runtimeClasses.put(id.name(), new Overhead(fixed, source));
+        }
+        default -> throw new IllegalStateException(k.toString());
+      }
+      return true;
+    }
+
+    void scalable(String key, WorkloadId id, SourceRef source, Integer replicas,
+        PodTemplateSpec t, String templatePtr, String specPtr, ObjectContext ctx) {
+      if (replicas != null && replicas < 0) {
+        ctx.error(specPtr + "/replicas", "spec.replicas " + replicas
+            + " is negative (expected 0 or more)");
+        return;
+      }
+      PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), templatePtr, ctx);
+      put(key, new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false,
+          true));
+    }
+
+    void job(String key, WorkloadId id, SourceRef source, JobSpec s, String jobSpecPtr,
+        ObjectContext ctx) {
+      Integer parallelism = s == null ? null : s.getParallelism();
+      Integer completions = s == null ? null : s.getCompletions();
+      if (parallelism != null && parallelism < 0) {
+        ctx.error(jobSpecPtr + "/parallelism", "parallelism " + parallelism
+            + " is negative (expected 0 or more)");
+        return;
+      }
+      if (completions != null && completions < 0) {
+        ctx.error(jobSpecPtr + "/completions", "completions " + completions
+            + " is negative (expected 0 or more)");
+        return;
+      }
+      PodTemplateSpec t = s == null ? null : s.getTemplate();
+      PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(),
+          jobSpecPtr + "/template/spec", ctx);
+      put(key, new Candidate(id, source, pod, ReplicaRules.job(parallelism, completions), false,
+          false, false));
+    }
+
+    void put(String key, Candidate c) {
+      workloads.put(key, c);
+    }
+
+    /** Records an object's place; a second definition warns and the later one wins. */
+    void duplicate(String key, SourceRef source, WorkloadId id) {
+      SourceRef before = seen.get(key);
+      if (before != null && !before.equals(source)) {
+        diags.add(Diagnostic.warning(source, id + " is defined twice, at " + before + " and at "
+            + source + "; the later definition is used"));
+      }
+      seen.put(key, source);
+    }
+
+    <T> T convert(JsonNode node, Class<T> type, String ptr, ObjectContext ctx) {
+      try {
+        return k8s.convertValue(node, type);
+      } catch (RuntimeException e) {
+        DatabindException de = null;
+        for (Throwable c = e; c != null; c = c.getCause()) {
+          if (c instanceof DatabindException d) {
+            de = d;
+            break;
+          }
+        }
+        StringBuilder pointer = new StringBuilder(ptr);
+        StringBuilder dotted = new StringBuilder();
+        Class<?> target = null;
+        if (de != null) {
+          List<JacksonException.Reference> path = de.getPath();
+          // When converting a nested node (a custom resource's template), the path starts there.
+          for (JacksonException.Reference r : path) {
+            if (r.getPropertyName() != null) {
+              pointer.append('/').append(LocatedDocument.segment(r.getPropertyName()));
+              dotted.append(dotted.length() == 0 ? "" : ".").append(r.getPropertyName());
+            } else if (r.getIndex() >= 0) {
+              pointer.append('/').append(r.getIndex());
+              dotted.append('[').append(r.getIndex()).append(']');
+            }
+          }
+          if (de instanceof MismatchedInputException m) {
+            target = m.getTargetType();
+          }
+        }
+        String field = dotted.length() == 0 ? "object" : dotted.toString();
+        JsonNode value = ctx.doc.at(pointer.toString());
+        String got = value == null || value.isMissingNode() ? "an unreadable value"
+            : value.isObject() ? "a mapping"
+            : value.isArray() ? "a list"
+            : value.isNull() ? "null"
+            : "\"" + value.asString() + "\"";
+        ctx.error(pointer.toString(), field + " expects " + describe(target) + ", got " + got);
+        return null;
+      }
+    }
+
+    Demand finish() {
+      Map<String, LimitDefaults> defaults = new TreeMap<>();
+      limitRanges.forEach((ns, byKey) -> {
+        List<NamedLimits> sorted = new ArrayList<>(byKey.values());
+        sorted.sort((a, b) -> a.name().compareTo(b.name()));
+        LimitDefaults d = LimitDefaults.NONE;
+        for (NamedLimits n : sorted) {
+          d = d.then(n.defaults());
+        }
+        defaults.put(ns, d);
+      });
+
+      Map<String, List<Autoscaler>> byTarget = new TreeMap<>();
+      for (Autoscaler a : autoscalers.values()) {
+        String target = a.namespace() + "/" + a.targetKind() + "/" + a.targetName();
+        boolean hit = workloads.values().stream()
+            .anyMatch(c -> c.scalable() && c.id().toString().equals(target));
+        if (!hit) {
+          diags.add(Diagnostic.note(a.source(), "HorizontalPodAutoscaler " + a.label()
+              + " targets " + a.targetKind() + " " + a.targetName()
+              + ", which is not a Deployment, ReplicaSet, StatefulSet or ReplicationController"
+              + " in the input; ignored"));
+          continue;
+        }
+        byTarget.computeIfAbsent(target, t -> new ArrayList<>()).add(a);
+      }
+
+      List<Workload> sized = new ArrayList<>();
+      List<Workload> unsized = new ArrayList<>();
+      for (Candidate c : workloads.values()) {
+        Workload w = admit(c, defaults, byTarget.getOrDefault(c.id().toString(), List.of()));
+        if (w != null) {
+          sized.add(w);
+        }
+      }
+      for (List<Candidate> list : customs.values()) {
+        for (Candidate c : list) {
+          Workload w = admit(c, defaults, List.of());
+          if (w != null) {
+            (opts.includeCustom() ? sized : unsized).add(w);
+          }
+        }
+      }
+      sized.sort((a, b) -> a.id().compareTo(b.id()));
+      unsized.sort((a, b) -> a.id().compareTo(b.id()));
+      SortedMap<String, Integer> skippedByKind = new TreeMap<>();
+      skipped.values().forEach(k -> skippedByKind.merge(k, 1, Integer::sum));
+      List<Diagnostic> sorted = new ArrayList<>(diags);
+      sorted.sort(null);
+      return new Demand(sized, unsized, skippedByKind, sorted);
+    }
+
+    Workload admit(Candidate c, Map<String, LimitDefaults> defaults, List<Autoscaler> hpas) {
+      List<String> flags = new ArrayList<>();
+      PodModel pod = Admission.limitsAsRequests(c.pod());
+      LimitDefaults d = defaults.getOrDefault(c.id().namespace(), LimitDefaults.NONE);
+      PodModel defaulted = Admission.applyLimitDefaults(pod, d);
+      if (!defaulted.equals(pod)) {
+        flags.add("LimitRange defaults of namespace " + c.id().namespace() + " applied");
+      }
+      pod = defaulted;
+      if (pod.runtimeClassName().isPresent()) {
+        String rc = pod.runtimeClassName().get();
+        Overhead o = runtimeClasses.get(rc);
+        if (o == null) {
+          diags.add(Diagnostic.warning(c.source(), c.id() + ": RuntimeClass \"" + rc
+              + "\" is not in the input, so its pod overhead is unknown"
+              + (pod.overhead().isEmpty() ? " and counted as zero" : "; spec.overhead is used")));
+          flags.add("overhead unknown: RuntimeClass " + rc + " not in input");
+        } else if (!o.podFixed().isEmpty()) {
+          if (!pod.overhead().isEmpty() && !pod.overhead().equals(o.podFixed())) {
+            diags.add(Diagnostic.warning(c.source(), c.id() + ": spec.overhead differs from"
+                + " RuntimeClass \"" + rc + "\" overhead.podFixed; the RuntimeClass's is used"));
+          }
+          pod = Admission.applyOverhead(pod, o.podFixed());
+        }
+      }
+      List<String> problems = PodArithmetic.validate(pod);
+      if (!problems.isEmpty()) {
+        for (String p : problems) {
+          diags.add(Diagnostic.error(c.source(), c.id() + ": " + p));
+        }
+        return null;
+      }
+      EffectivePod eff = PodArithmetic.effective(pod);
+      Replicas replicas = c.replicas();
+      if (!hpas.isEmpty()) {
+        Autoscaler top = hpas.get(0);
+        for (Autoscaler a : hpas) {
+          if (a.maxReplicas() > top.maxReplicas()) {
+            top = a;
+          }
+        }
+        if (hpas.size() > 1) {
+          diags.add(Diagnostic.warning(c.source(), c.id() + " is the target of "
+              + hpas.size() + " HorizontalPodAutoscalers; the largest maxReplicas ("
+              + top.label() + ") is used"));
+        }
+        replicas = ReplicaRules.autoscaled(replicas, top.maxReplicas(), top.label(),
+            opts.replicaMode());
+      }
+      if (c.custom()) {
+        flags.add(GUESS_FLAG);
+      }
+      return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
+    }
+  }
+
+  private static boolean isManifest(Path f) {
+    String n = f.getFileName().toString().toLowerCase(Locale.ROOT);
+    return n.endsWith(".yaml") || n.endsWith(".yml") || n.endsWith(".json");
+  }
+
+  private static boolean hidden(Path root, Path f) {
+    for (Path part : root.relativize(f)) {
+      if (part.toString().startsWith(".")) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  private static String text(JsonNode n) {
+    return n != null && n.isString() ? n.asString() : null;
+  }
+
+  /**
+   * A template's place in its object: {@code /spec/workerGroupSpecs/0/template} → {@code
+   * spec.workerGroupSpecs[0]}; a named template such as {@code workerTemplate} keeps its name.
+   */
+  private static String templateLabel(String pointer) {
+    String p = pointer.endsWith("/template") ? pointer.substring(0, pointer.length() - 9) : pointer;
+    return dotted(p);
+  }
+
+  /** {@code /spec/workerGroupSpecs/0} → {@code spec.workerGroupSpecs[0]}. */
+  private static String dotted(String pointer) {
+    StringBuilder b = new StringBuilder();
+    for (String part : pointer.split("/")) {
+      if (part.isEmpty()) {
+        continue;
+      }
+      if (part.chars().allMatch(Character::isDigit)) {
+        b.append('[').append(part).append(']');
+      } else {
+        b.append(b.length() == 0 ? "" : ".").append(part.replace("~1", "/").replace("~0", "~"));
+      }
+    }
+    return b.toString();
+  }
+
+  /**
+   * Every pod template under a node, in document order: a {@code template} (or {@code *Template},
+   * as in {@code workerTemplate}) whose {@code spec.containers} is a list.
+   */
+  private static void findTemplates(JsonNode n, String ptr, List<String> out) {
+    if (n.isObject()) {
+      for (Map.Entry<String, JsonNode> e : n.properties()) {
+        String child = ptr + "/" + LocatedDocument.segment(e.getKey());
+        JsonNode v = e.getValue();
+        boolean templateKey = e.getKey().equals("template") || e.getKey().endsWith("Template");
+        if (templateKey && v.isObject() && v.path("spec").path("containers").isArray()) {
+          out.add(child);
+        } else {
+          findTemplates(v, child, out);
+        }
+      }
+    } else if (n.isArray()) {
+      for (int i = 0; i < n.size(); i++) {
+        findTemplates(n.get(i), ptr + "/" + i, out);
+      }
+    }
+  }
+
+  private static String describe(Class<?> t) {
+    if (t == null) {
+      return "a value of another type";
+    }
+    if (t == Integer.class || t == int.class || t == Long.class || t == long.class) {
+      return "an integer";
+    }
+    if (t == String.class) {
+      return "a string";
+    }
+    if (t == Boolean.class || t == boolean.class) {
+      return "true or false";
+    }
+    if (t == Double.class || t == double.class || t == Float.class || t == float.class) {
+      return "a number";
+    }
+    if (t == io.fabric8.kubernetes.api.model.Quantity.class) {
+      return "a Kubernetes quantity " + PodSpecs.EXPECTED;
+    }
+    if (t == io.fabric8.kubernetes.api.model.IntOrString.class) {
+      return "an integer or a string";
+    }
+    if (Collection.class.isAssignableFrom(t)) {
+      return "a list";
+    }
+    return "a mapping";
+  }
+}

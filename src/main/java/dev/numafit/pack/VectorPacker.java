@@ -1,0 +1,903 @@
+package dev.numafit.pack;
+
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.Map;
+
+/**
+ * Packs vector items (pods: demand per resource) into as few equal bins (workers) as it can find.
+ *
+ * <p>The search follows the heuristics that do well on vector bin packing in "Heuristics for
+ * vector bin packing" (Panigrahy, Talwar, Uyeda, Wieder, 2011) and the comparison in
+ * "Classification and evaluation of the algorithms for vector bin packing" (Computers &amp; OR,
+ * 2025): first-fit-decreasing by the largest normalised demand, then other orders (sum of
+ * normalised demands, and demands weighted by how loaded each dimension is overall) and best-fit
+ * variants, keeping the best; then an improvement pass that tries to empty the least-filled bins
+ * by moving their items elsewhere, swapping a smaller item out of a bin where that makes room.
+ *
+ * <p>Deterministic: effort is counted in steps (one step per bin or item examined) against a
+ * budget given at construction, never in time, so the same input always gives the same packing.
+ * The first pass always completes; later passes stop when the budget runs out and their partial
+ * work is discarded. The search also stops as soon as a packing reaches the {@link LowerBound}.
+ *
+ * <p>Identical items (replicas of one workload) are grouped, so a first-fit pass costs about one
+ * step per bin per distinct item, not per item: 150,000 pods of 5,000 workloads pack quickly.
+ */
+public final class VectorPacker {
+  /** Default step budget: enough for the improvement pass on instances of a few hundred items. */
+  public static final long DEFAULT_STEP_BUDGET = 20_000_000L;
+
+  private final long stepBudget;
+
+  /** A packer with {@link #DEFAULT_STEP_BUDGET}. */
+  public VectorPacker() {
+    this(DEFAULT_STEP_BUDGET);
+  }
+
+  /**
+   * @param stepBudget the most steps the optional passes may spend (the first first-fit-decreasing
+   *     pass always runs to the end)
+   */
+  public VectorPacker(long stepBudget) {
+    if (stepBudget < 0) {
+      throw new IllegalArgumentException("step budget must be >= 0, was " + stepBudget);
+    }
+    this.stepBudget = stepBudget;
+  }
+
+  /** The step budget this packer was built with. */
+  public long stepBudget() {
+    return stepBudget;
+  }
+
+  /**
+   * Whether an item fits an empty bin: every demand at most the capacity in its dimension.
+   * Callers report items that do not as oversize; {@link #pack} rejects them.
+   */
+  public static boolean fitsEmptyBin(long[] item, long[] capacity) {
+    for (int k = 0; k < capacity.length; k++) {
+      if (item[k] > capacity[k]) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  /**
+   * Packs the items.
+   *
+   * @param items {@code items[i][k]}: item i's demand in dimension k, all {@code >= 0}
+   * @param capacity {@code capacity[k]}: each bin's room in dimension k, {@code >= 0}
+   * @throws IllegalArgumentException when an item does not fit an empty bin, a demand is negative
+   *     or a row's length differs from the capacity's
+   */
+  public Packing pack(long[][] items, long[] capacity) {
+    Instance in = Instance.of(items, capacity);
+    if (in.n == 0) {
+      return new Packing(0, new int[0], 0);
+    }
+    Search s = new Search(in, stepBudget);
+    return s.run(LowerBound.of(items, capacity));
+  }
+
+  /** The items grouped into types (identical vectors), restricted to the dimensions that matter. */
+  static final class Instance {
+    final int n;
+    final int d;
+    final long[] cap;
+    /** Type demands, flat: {@code w[t * d + k]}. */
+    final long[] w;
+    final int types;
+    final int[] count;
+    /** Original item indices of each type, in input order. */
+    final int[][] members;
+    final int[] typeOfItem;
+    /** Smallest demand over types per dimension: a bin with less left can take nothing more. */
+    final long[] minW;
+
+    private Instance(
+        int n, int d, long[] cap, long[] w, int types, int[] count, int[][] members, int[] typeOf) {
+      this.n = n;
+      this.d = d;
+      this.cap = cap;
+      this.w = w;
+      this.types = types;
+      this.count = count;
+      this.members = members;
+      this.typeOfItem = typeOf;
+      this.minW = new long[d];
+      Arrays.fill(minW, Long.MAX_VALUE);
+      for (int t = 0; t < types; t++) {
+        for (int k = 0; k < d; k++) {
+          minW[k] = Math.min(minW[k], w[t * d + k]);
+        }
+      }
+    }
+
+    static Instance of(long[][] items, long[] capacity) {
+      int dAll = capacity.length;
+      for (int k = 0; k < dAll; k++) {
+        if (capacity[k] < 0) {
+          throw new IllegalArgumentException("capacity " + k + " is negative: " + capacity[k]);
+        }
+      }
+      boolean[] used = new boolean[dAll];
+      for (int i = 0; i < items.length; i++) {
+        long[] item = items[i];
+        if (item.length != dAll) {
+          throw new IllegalArgumentException(
+              "item " + i + " has " + item.length + " dimensions, capacity has " + dAll);
+        }
+        for (int k = 0; k < dAll; k++) {
+          if (item[k] < 0) {
+            throw new IllegalArgumentException("item " + i + " demand " + k + " is negative");
+          }
+          if (item[k] > capacity[k]) {
+            throw new IllegalArgumentException(
+                "item " + i + " exceeds capacity in dimension " + k + ": " + item[k] + " > "
+                    + capacity[k]);
+          }
+          if (item[k] > 0) {
+            used[k] = true;
+          }
+        }
+      }
+      // Dimensions no item uses cannot bind: leave them out of every inner loop.
+      int d = 0;
+      int[] dims = new int[dAll];
+      for (int k = 0; k < dAll; k++) {
+        if (used[k]) {
+          dims[d++] = k;
+        }
+      }
+      long[] cap = new long[d];
+      for (int j = 0; j < d; j++) {
+        cap[j] = capacity[dims[j]];
+      }
+      // Group identical vectors. The map is only looked up, never iterated: type ids follow
+      // first appearance, so the result does not depend on hashing.
+      Map<Key, Integer> ids = new HashMap<>();
+      int n = items.length;
+      int[] typeOf = new int[n];
+      long[] w = new long[Math.multiplyExact(n, d)];
+      int[] count = new int[n];
+      int types = 0;
+      for (int i = 0; i < n; i++) {
+        long[] v = new long[d];
+        for (int j = 0; j < d; j++) {
+          v[j] = items[i][dims[j]];
+        }
+        Integer id = ids.putIfAbsent(new Key(v), types);
+        if (id == null) {
+          id = types++;
+          System.arraycopy(v, 0, w, id * d, d);
+        }
+        typeOf[i] = id;
+        count[id]++;
+      }
+      int[][] members = new int[types][];
+      int[] fill = new int[types];
+      for (int t = 0; t < types; t++) {
+        members[t] = new int[count[t]];
+      }
+      for (int i = 0; i < n; i++) {
+        int t = typeOf[i];
+        members[t][fill[t]++] = i;
+      }
+      return new Instance(
+          n, d, cap, Arrays.copyOf(w, types * d), types, Arrays.copyOf(count, types), members,
+          typeOf);
+    }
+
+    long w(int t, int k) {
+      return w[t * d + k];
+    }
+  }
+
+  /** A long[] usable as a hash key. */
+  private record Key(long[] v) {
+    @Override
+    public boolean equals(Object o) {
+      return o instanceof Key k && Arrays.equals(k.v, v);
+    }
+
+    @Override
+    public int hashCode() {
+      return Arrays.hashCode(v);
+    }
+  }
+
+  /** One run of the search: the passes and the budget they share. */
+  static final class Search {
+    private final Instance in;
+    private final long budget;
+    private long steps;
+
+    Search(Instance in, long budget) {
+      this.in = in;
+      this.budget = budget;
+    }
+
+    Packing run(int lowerBound) {
+      int[] best = greedy(order(maxNormKeys()), false, Long.MAX_VALUE);
+      int bestBins = binsOf(best);
+      double[][] orders = {sumNormKeys(), weightedKeys(), maxNormKeys(), weightedKeys()};
+      boolean[] bestFit = {false, false, true, true};
+      for (int p = 0; p < orders.length && bestBins > lowerBound && steps < budget; p++) {
+        int[] candidate = greedy(order(orders[p]), bestFit[p], budget);
+        if (candidate != null && binsOf(candidate) < bestBins) {
+          best = candidate;
+          bestBins = binsOf(candidate);
+        }
+      }
+      if (bestBins > lowerBound && steps < budget) {
+        int[] candidate = minimumBinSlack(order(sumNormKeys()), lowerBound);
+        if (candidate != null && binsOf(candidate) < bestBins) {
+          best = candidate;
+          bestBins = binsOf(candidate);
+        }
+      }
+      if (bestBins > lowerBound && steps < budget) {
+        Improver improver = new Improver(in, best, sumNormItemKeys());
+        best = improver.run(lowerBound);
+      }
+      return new Packing(binsOf(best), best, steps);
+    }
+
+    private static int binsOf(int[] binOfItem) {
+      int max = -1;
+      for (int b : binOfItem) {
+        max = Math.max(max, b);
+      }
+      return max + 1;
+    }
+
+    // --- orderings -------------------------------------------------------------------------
+
+    private double[] maxNormKeys() {
+      double[] key = new double[in.types];
+      for (int t = 0; t < in.types; t++) {
+        double m = 0;
+        for (int k = 0; k < in.d; k++) {
+          m = Math.max(m, (double) in.w(t, k) / in.cap[k]);
+        }
+        key[t] = m;
+      }
+      return key;
+    }
+
+    private double[] sumNormKeys() {
+      double[] key = new double[in.types];
+      for (int t = 0; t < in.types; t++) {
+        double s = 0;
+        for (int k = 0; k < in.d; k++) {
+          s += (double) in.w(t, k) / in.cap[k];
+        }
+        key[t] = s;
+      }
+      return key;
+    }
+
+    /** Demands weighted by each dimension's total normalised demand: scarce dimensions count more. */
+    private double[] weightedKeys() {
+      double[] total = new double[in.d];
+      for (int t = 0; t < in.types; t++) {
+        for (int k = 0; k < in.d; k++) {
+          total[k] += (double) in.w(t, k) * in.count[t] / in.cap[k];
+        }
+      }
+      double[] key = new double[in.types];
+      for (int t = 0; t < in.types; t++) {
+        double s = 0;
+        for (int k = 0; k < in.d; k++) {
+          s += total[k] * in.w(t, k) / in.cap[k];
+        }
+        key[t] = s;
+      }
+      return key;
+    }
+
+    private double[] sumNormItemKeys() {
+      double[] byType = sumNormKeys();
+      double[] key = new double[in.n];
+      for (int i = 0; i < in.n; i++) {
+        key[i] = byType[in.typeOfItem[i]];
+      }
+      return key;
+    }
+
+    /** Types by decreasing key; equal keys keep first-appearance order. */
+    private int[] order(double[] key) {
+      Integer[] idx = new Integer[in.types];
+      for (int t = 0; t < in.types; t++) {
+        idx[t] = t;
+      }
+      Arrays.sort(idx, (a, b) -> {
+        int c = Double.compare(key[b], key[a]);
+        return c != 0 ? c : Integer.compare(a, b);
+      });
+      int[] out = new int[in.types];
+      for (int t = 0; t < in.types; t++) {
+        out[t] = idx[t];
+      }
+      return out;
+    }
+
+    // --- greedy passes ---------------------------------------------------------------------
+
+    /**
+     * First fit (or best fit) of the types in the given order; copies of one type are placed as
+     * many at a time as fit, which gives exactly the item-by-item first-fit result. Returns null
+     * when the step budget runs out first.
+     */
+    private int[] greedy(int[] order, boolean bestFit, long limit) {
+      int d = in.d;
+      Bins bins = new Bins(d, in.cap);
+      int[] placeType = new int[16];
+      int[] placeBin = new int[16];
+      int[] placeCount = new int[16];
+      int placements = 0;
+      for (int t : order) {
+        int left = in.count[t];
+        int from = 0;
+        while (left > 0) {
+          int chosen = -1;
+          long chosenFit = 0;
+          double chosenSlack = Double.MAX_VALUE;
+          for (int b = bins.nextOpen(from); b < bins.size; b = bins.nextOpen(b + 1)) {
+            steps++;
+            long fit = bins.fitCount(b, in.w, t);
+            if (fit == 0) {
+              continue;
+            }
+            if (!bestFit) {
+              chosen = b;
+              chosenFit = fit;
+              break;
+            }
+            double slack = bins.slackAfter(b, in.w, t, Math.min(fit, left));
+            if (slack < chosenSlack) {
+              chosen = b;
+              chosenFit = fit;
+              chosenSlack = slack;
+            }
+          }
+          if (steps > limit) {
+            return null;
+          }
+          if (chosen < 0) {
+            chosen = bins.open();
+            chosenFit = bins.fitCount(chosen, in.w, t);
+          }
+          int placed = (int) Math.min(chosenFit, left);
+          bins.add(chosen, in.w, t, placed, in.minW);
+          left -= placed;
+          if (!bestFit) {
+            // Earlier bins could not take this type; they will not take more copies either.
+            from = chosen + 1;
+          }
+          if (placements == placeType.length) {
+            placeType = Arrays.copyOf(placeType, placements * 2);
+            placeBin = Arrays.copyOf(placeBin, placements * 2);
+            placeCount = Arrays.copyOf(placeCount, placements * 2);
+          }
+          placeType[placements] = t;
+          placeBin[placements] = chosen;
+          placeCount[placements] = placed;
+          placements++;
+        }
+      }
+      int[] binOfItem = new int[in.n];
+      int[] next = new int[in.types];
+      for (int p = 0; p < placements; p++) {
+        int t = placeType[p];
+        for (int c = 0; c < placeCount[p]; c++) {
+          binOfItem[in.members[t][next[t]++]] = placeBin[p];
+        }
+      }
+      return binOfItem;
+    }
+
+    // --- minimum bin slack ------------------------------------------------------------------
+
+    private int[] mbsRemaining;
+    private int[] mbsOrder;
+    private long[] mbsRes;
+    private int[] mbsStack;
+    private int mbsDepth;
+    private int[] mbsBest;
+    private int mbsBestDepth;
+    private double mbsBestSlack;
+    private long mbsLocalSteps;
+    private long mbsLimit;
+
+    /**
+     * Fills one bin at a time with the subset of the remaining items that leaves the least
+     * normalised slack, the largest remaining item always included: MBS' after Gupta and Ho, "A
+     * new heuristic algorithm for the one-dimensional bin-packing problem" (1999), and Fleszar and
+     * Hindi, "New heuristics for one-dimensional bin-packing" (2002). The subset search per bin is
+     * cut off after a share of the remaining step budget, so it degrades to a greedy fill on large
+     * inputs. Returns null when the budget runs out.
+     */
+    private int[] minimumBinSlack(int[] order, int lowerBound) {
+      int d = in.d;
+      mbsOrder = order;
+      mbsRemaining = in.count.clone();
+      mbsRes = new long[d];
+      mbsStack = new int[16];
+      mbsBest = new int[16];
+      int[] binOfItem = new int[in.n];
+      int[] nextMember = new int[in.types];
+      int left = in.n;
+      int bin = 0;
+      int first = 0;
+      while (left > 0) {
+        if (steps >= budget) {
+          return null;
+        }
+        while (mbsRemaining[order[first]] == 0) {
+          first++;
+        }
+        long share = (budget - steps) / Math.max(1, lowerBound - bin);
+        mbsLimit = Math.max(in.types, Math.min(share, 200_000L));
+        mbsLocalSteps = 0;
+        System.arraycopy(in.cap, 0, mbsRes, 0, d);
+        mbsDepth = 0;
+        take(first);
+        mbsBestDepth = 0;
+        mbsBestSlack = Double.MAX_VALUE;
+        record();
+        search(first);
+        for (int i = 0; i < mbsDepth; i++) {
+          untakeCount(mbsStack[i]);
+        }
+        for (int i = 0; i < mbsBestDepth; i++) {
+          int t = order[mbsBest[i]];
+          mbsRemaining[t]--;
+          binOfItem[in.members[t][nextMember[t]++]] = bin;
+          left--;
+        }
+        bin++;
+      }
+      return binOfItem;
+    }
+
+    /** Returns true when a bin with no slack at all was found: nothing can beat it. */
+    private boolean search(int from) {
+      for (int j = from; j < mbsOrder.length; j++) {
+        int t = mbsOrder[j];
+        if (mbsRemaining[t] == 0) {
+          continue;
+        }
+        steps++;
+        if (++mbsLocalSteps > mbsLimit) {
+          return true;
+        }
+        boolean fits = true;
+        for (int k = 0; k < in.d; k++) {
+          if (in.w(t, k) > mbsRes[k]) {
+            fits = false;
+            break;
+          }
+        }
+        if (!fits) {
+          continue;
+        }
+        take(j);
+        double slack = slack();
+        if (slack < mbsBestSlack) {
+          record();
+        }
+        boolean done = slack == 0 || search(j);
+        untake();
+        if (done) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    private void take(int j) {
+      int t = mbsOrder[j];
+      if (mbsDepth == mbsStack.length) {
+        mbsStack = Arrays.copyOf(mbsStack, mbsDepth * 2);
+      }
+      mbsStack[mbsDepth++] = j;
+      mbsRemaining[t]--;
+      for (int k = 0; k < in.d; k++) {
+        mbsRes[k] -= in.w(t, k);
+      }
+    }
+
+    private void untake() {
+      int j = mbsStack[--mbsDepth];
+      untakeCount(j);
+      int t = mbsOrder[j];
+      for (int k = 0; k < in.d; k++) {
+        mbsRes[k] += in.w(t, k);
+      }
+    }
+
+    private void untakeCount(int j) {
+      mbsRemaining[mbsOrder[j]]++;
+    }
+
+    private double slack() {
+      double s = 0;
+      for (int k = 0; k < in.d; k++) {
+        s += (double) mbsRes[k] / in.cap[k];
+      }
+      return s;
+    }
+
+    private void record() {
+      if (mbsBest.length < mbsDepth) {
+        mbsBest = Arrays.copyOf(mbsBest, mbsStack.length);
+      }
+      System.arraycopy(mbsStack, 0, mbsBest, 0, mbsDepth);
+      mbsBestDepth = mbsDepth;
+      mbsBestSlack = slack();
+    }
+
+    /** Residual room of open bins, flat, with a skip list past bins that can take nothing more. */
+    private static final class Bins {
+      final int d;
+      final long[] cap;
+      long[] res;
+      /** Union-find style pointer to the next bin at or after b that may still take an item. */
+      int[] next;
+      int size;
+
+      Bins(int d, long[] cap) {
+        this.d = d;
+        this.cap = cap;
+        this.res = new long[Math.max(1, d) * 64];
+        this.next = new int[64];
+      }
+
+      int open() {
+        if (size == next.length) {
+          next = Arrays.copyOf(next, size * 2);
+          res = Arrays.copyOf(res, Math.max(1, d) * size * 2);
+        }
+        System.arraycopy(cap, 0, res, size * d, d);
+        next[size] = size;
+        return size++;
+      }
+
+      int nextOpen(int b) {
+        if (b >= size) {
+          return size;
+        }
+        int root = b;
+        while (root < size && next[root] != root) {
+          root = next[root];
+        }
+        // Path compression keeps later look-ups short.
+        while (b < size && next[b] != b) {
+          int up = next[b];
+          next[b] = root;
+          b = up;
+        }
+        return root;
+      }
+
+      long fitCount(int b, long[] w, int t) {
+        long m = Long.MAX_VALUE;
+        int rb = b * d;
+        int wt = t * d;
+        for (int k = 0; k < d; k++) {
+          long wk = w[wt + k];
+          if (wk > 0) {
+            long f = res[rb + k] / wk;
+            if (f < m) {
+              m = f;
+              if (m == 0) {
+                return 0;
+              }
+            }
+          }
+        }
+        return m;
+      }
+
+      double slackAfter(int b, long[] w, int t, long copies) {
+        double s = 0;
+        for (int k = 0; k < d; k++) {
+          s += (double) (res[b * d + k] - copies * w[t * d + k]) / cap[k];
+        }
+        return s;
+      }
+
+      void add(int b, long[] w, int t, int copies, long[] minW) {
+        boolean closed = false;
+        for (int k = 0; k < d; k++) {
+          long r = res[b * d + k] - copies * w[t * d + k];
+          res[b * d + k] = r;
+          if (r < minW[k]) {
+            closed = true;
+          }
+        }
+        if (closed) {
+          next[b] = b + 1;
+        }
+      }
+    }
+
+    // --- improvement -----------------------------------------------------------------------
+
+    /** Tries to empty the least-filled bins by moves and swaps; keeps only complete successes. */
+    private final class Improver {
+      private final Instance in;
+      private final int d;
+      private final double[] key;
+      private final int[] binOf;
+      private int binCount;
+      private long[] res;
+      private int[][] itemsOf;
+      private int[] sizeOf;
+      private final int[] posOf;
+      private boolean[] dead;
+      private int live;
+      // Undo log of moves made by the current attempt.
+      private int[] logItem = new int[64];
+      private int[] logFrom = new int[64];
+      private int logSize;
+
+      Improver(Instance in, int[] start, double[] key) {
+        this.in = in;
+        this.d = in.d;
+        this.key = key;
+        this.binOf = start.clone();
+        this.binCount = binsOf(start);
+        this.live = binCount;
+        this.res = new long[binCount * d];
+        this.itemsOf = new int[binCount][];
+        this.sizeOf = new int[binCount];
+        this.posOf = new int[in.n];
+        this.dead = new boolean[binCount];
+        for (int b = 0; b < binCount; b++) {
+          System.arraycopy(in.cap, 0, res, b * d, d);
+        }
+        for (int i = 0; i < in.n; i++) {
+          sizeOf[binOf[i]]++;
+        }
+        for (int b = 0; b < binCount; b++) {
+          itemsOf[b] = new int[Math.max(4, sizeOf[b])];
+          sizeOf[b] = 0;
+        }
+        for (int i = 0; i < in.n; i++) {
+          int b = binOf[i];
+          insert(i, b);
+          subtract(i, b);
+        }
+      }
+
+      int[] run(int lowerBound) {
+        while (live > lowerBound && steps < budget) {
+          boolean progress = false;
+          for (int target : binsByFill()) {
+            if (steps >= budget) {
+              break;
+            }
+            if (tryEmpty(target)) {
+              progress = true;
+              break;
+            }
+          }
+          if (!progress) {
+            break;
+          }
+        }
+        // Renumber the surviving bins in their old order.
+        int[] renumber = new int[binCount];
+        int next = 0;
+        for (int b = 0; b < binCount; b++) {
+          renumber[b] = dead[b] ? -1 : next++;
+        }
+        int[] out = new int[in.n];
+        for (int i = 0; i < in.n; i++) {
+          out[i] = renumber[binOf[i]];
+        }
+        return out;
+      }
+
+      private Integer[] binsByFill() {
+        Integer[] order = new Integer[live];
+        double[] fill = new double[binCount];
+        int j = 0;
+        for (int b = 0; b < binCount; b++) {
+          if (!dead[b]) {
+            order[j++] = b;
+            for (int k = 0; k < d; k++) {
+              fill[b] += (double) (in.cap[k] - res[b * d + k]) / in.cap[k];
+            }
+          }
+        }
+        Arrays.sort(order, (a, b) -> {
+          int c = Double.compare(fill[a], fill[b]);
+          return c != 0 ? c : Integer.compare(a, b);
+        });
+        return order;
+      }
+
+      private boolean tryEmpty(int target) {
+        logSize = 0;
+        // Pending items, kept sorted by decreasing key (ties: lower item index first).
+        int[] pending = Arrays.copyOf(itemsOf[target], sizeOf[target]);
+        int pendingSize = pending.length;
+        sortByKeyDesc(pending, pendingSize);
+        while (pendingSize > 0) {
+          if (steps >= budget) {
+            undo();
+            return false;
+          }
+          int x = pending[0];
+          System.arraycopy(pending, 1, pending, 0, --pendingSize);
+          int b = bestBinFor(x, target);
+          if (b >= 0) {
+            move(x, b);
+            continue;
+          }
+          long swap = swapFor(x, target);
+          if (swap < 0) {
+            undo();
+            return false;
+          }
+          int y = (int) swap;
+          int yb = binOf[y];
+          move(y, target);
+          move(x, yb);
+          // Insert y keeping the order; y is smaller than every item already placed this round.
+          if (pendingSize == pending.length) {
+            pending = Arrays.copyOf(pending, pending.length * 2 + 1);
+          }
+          int at = pendingSize;
+          while (at > 0 && before(y, pending[at - 1])) {
+            pending[at] = pending[at - 1];
+            at--;
+          }
+          pending[at] = y;
+          pendingSize++;
+        }
+        dead[target] = true;
+        live--;
+        return true;
+      }
+
+      private boolean before(int a, int b) {
+        int c = Double.compare(key[b], key[a]);
+        return c != 0 ? c < 0 : a < b;
+      }
+
+      private void sortByKeyDesc(int[] a, int size) {
+        Integer[] boxed = new Integer[size];
+        for (int i = 0; i < size; i++) {
+          boxed[i] = a[i];
+        }
+        Arrays.sort(boxed, (p, q) -> before(p, q) ? -1 : (before(q, p) ? 1 : 0));
+        for (int i = 0; i < size; i++) {
+          a[i] = boxed[i];
+        }
+      }
+
+      /** The live bin (not the target) where x fits leaving the least normalised slack, or -1. */
+      private int bestBinFor(int x, int target) {
+        int t = in.typeOfItem[x];
+        int best = -1;
+        double bestSlack = Double.MAX_VALUE;
+        for (int b = 0; b < binCount; b++) {
+          if (dead[b] || b == target) {
+            continue;
+          }
+          steps++;
+          boolean fits = true;
+          double slack = 0;
+          for (int k = 0; k < d; k++) {
+            long r = res[b * d + k] - in.w(t, k);
+            if (r < 0) {
+              fits = false;
+              break;
+            }
+            slack += (double) r / in.cap[k];
+          }
+          if (fits && slack < bestSlack) {
+            best = b;
+            bestSlack = slack;
+          }
+        }
+        return best;
+      }
+
+      /**
+       * An item y in another live bin, smaller than x, whose place x can take: the smallest such
+       * y, so the bin ends fuller and y is the easiest to place. -1 when none.
+       */
+      private long swapFor(int x, int target) {
+        int tx = in.typeOfItem[x];
+        int bestY = -1;
+        for (int b = 0; b < binCount; b++) {
+          if (dead[b] || b == target) {
+            continue;
+          }
+          for (int j = 0; j < sizeOf[b]; j++) {
+            int y = itemsOf[b][j];
+            steps++;
+            if (!(key[y] < key[x]) || (bestY >= 0 && !before(bestY, y))) {
+              continue;
+            }
+            int ty = in.typeOfItem[y];
+            boolean fits = true;
+            for (int k = 0; k < d; k++) {
+              if (res[b * d + k] + in.w(ty, k) - in.w(tx, k) < 0) {
+                fits = false;
+                break;
+              }
+            }
+            if (fits) {
+              bestY = y;
+            }
+          }
+        }
+        return bestY;
+      }
+
+      private void move(int item, int to) {
+        int from = binOf[item];
+        if (logSize == logItem.length) {
+          logItem = Arrays.copyOf(logItem, logSize * 2);
+          logFrom = Arrays.copyOf(logFrom, logSize * 2);
+        }
+        logItem[logSize] = item;
+        logFrom[logSize] = from;
+        logSize++;
+        relocate(item, from, to);
+      }
+
+      private void undo() {
+        for (int i = logSize - 1; i >= 0; i--) {
+          int item = logItem[i];
+          relocate(item, binOf[item], logFrom[i]);
+        }
+        logSize = 0;
+      }
+
+      private void relocate(int item, int from, int to) {
+        remove(item, from);
+        add(item, from);
+        insert(item, to);
+        subtract(item, to);
+        binOf[item] = to;
+      }
+
+      private void subtract(int item, int b) {
+        int t = in.typeOfItem[item];
+        for (int k = 0; k < d; k++) {
+          res[b * d + k] -= in.w(t, k);
+        }
+      }
+
+      private void add(int item, int b) {
+        int t = in.typeOfItem[item];
+        for (int k = 0; k < d; k++) {
+          res[b * d + k] += in.w(t, k);
+        }
+      }
+
+      private void insert(int item, int b) {
+        if (sizeOf[b] == itemsOf[b].length) {
+          itemsOf[b] = Arrays.copyOf(itemsOf[b], sizeOf[b] * 2 + 1);
+        }
+        posOf[item] = sizeOf[b];
+        itemsOf[b][sizeOf[b]++] = item;
+      }
+
+      private void remove(int item, int b) {
+        int p = posOf[item];
+        int last = itemsOf[b][--sizeOf[b]];
+        itemsOf[b][p] = last;
+        posOf[last] = p;
+      }
+    }
+  }
+}

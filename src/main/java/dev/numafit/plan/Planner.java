@@ -1,0 +1,277 @@
+package dev.numafit.plan;
+
+import dev.numafit.demand.Demand;
+import dev.numafit.demand.Workload;
+import dev.numafit.diag.Diagnostic;
+import dev.numafit.fit.OversizeCheck;
+import dev.numafit.fit.SpanningRoom;
+import dev.numafit.pack.LowerBound;
+import dev.numafit.pack.Packing;
+import dev.numafit.pack.VectorPacker;
+import dev.numafit.resource.Resources;
+import java.math.BigDecimal;
+import java.math.RoundingMode;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalInt;
+import java.util.SortedMap;
+import java.util.SortedSet;
+import java.util.TreeMap;
+import java.util.TreeSet;
+
+/**
+ * Turns a demand and a worker shape into a {@link Plan}: how many workers and hosts, which pods
+ * are too big, how full the workers are and which resource runs out first.
+ *
+ * <p>The rules, in order:
+ *
+ * <ol>
+ *   <li>DaemonSet pods (one of each, each taking one of the worker's {@code pods}) and {@code
+ *       --per-worker} demand are on every worker.
+ *   <li>The room on each worker for other pods is {@code floor(allocatable × maxUtilization / 100)
+ *       − per-worker demand}, per resource. The percentage applies to the allocatable amount, not
+ *       to what is left after DaemonSets, and not to {@code pods}: maxPods is a count the kubelet
+ *       enforces, not a load that needs headroom.
+ *   <li>Every other workload runs {@code ceil(peak × growth)} pods, each asking its effective
+ *       requests plus one {@code pods}.
+ *   <li>Pods that do not fit the room are reported as oversize ({@link OversizeCheck}) and not
+ *       packed; resources with no capacity are reported as unchecked.
+ *   <li>The rest are packed ({@link VectorPacker}) over every resource that has a capacity; the
+ *       {@link LowerBound} says how close the packing is.
+ *   <li>Hosts = {@code ceil(workers / workersPerHost) + hostFailures}.
+ *   <li>Utilization per resource = (packed requests + per-worker demand × workers) / (allocatable
+ *       × workers), 4 decimals; the binding resource has the highest.
+ * </ol>
+ *
+ * <p>Pure and deterministic: the same demand and input give the same plan.
+ */
+public final class Planner {
+  private final VectorPacker packer;
+
+  /** A planner with the default packer. */
+  public Planner() {
+    this(new VectorPacker());
+  }
+
+  /** A planner with the given packer (for a different step budget). */
+  public Planner(VectorPacker packer) {
+    this.packer = packer;
+  }
+
+  /** Plans the demand onto the input's worker shape. */
+  public Plan plan(Demand demand, PlanInput in) {
+    List<Diagnostic> warnings = new ArrayList<>(in.warnings());
+    List<String> notes = new ArrayList<>(in.notes());
+    Resources allocatable = in.allocatable();
+    SortedSet<String> checked = new TreeSet<>(allocatable.names());
+
+    List<Workload> workloads = new ArrayList<>(demand.workloads());
+    workloads.sort(Comparator.comparing(Workload::id));
+
+    Resources perWorker = in.perWorkerExtra();
+    for (Workload w : workloads) {
+      if (w.perWorker()) {
+        perWorker = perWorker.plus(w.pod().requests().with(Resources.PODS, 1L));
+      }
+    }
+
+    Resources room = roomOf(allocatable, checked, perWorker, in.maxUtilizationPct());
+    for (String r : checked) {
+      long scaled = scaled(r, allocatable.get(r), in.maxUtilizationPct());
+      if (perWorker.get(r) > scaled) {
+        warnings.add(
+            Diagnostic.warning(
+                null,
+                "per-worker demand (DaemonSets and --per-worker) needs "
+                    + perWorker.get(r)
+                    + " of "
+                    + r
+                    + " but a worker has "
+                    + scaled
+                    + ": no other pod fits"));
+      }
+    }
+    List<OversizeCheck.Option> options = new ArrayList<>();
+    for (SpanningRoom s : in.spanning()) {
+      options.add(
+          new OversizeCheck.Option(
+              s.label(), roomOf(s.allocatable(), checked, perWorker, in.maxUtilizationPct())));
+    }
+
+    // Replica counts at peak × growth; workloads that run no pods take no part.
+    List<Workload> running = new ArrayList<>();
+    List<Integer> replicas = new ArrayList<>();
+    List<OversizeCheck.PodRequest> requests = new ArrayList<>();
+    for (Workload w : workloads) {
+      if (w.perWorker()) {
+        continue;
+      }
+      int count = scaleReplicas(w.replicas().peak(), in.growth());
+      if (count == 0) {
+        continue;
+      }
+      running.add(w);
+      replicas.add(count);
+      requests.add(
+          new OversizeCheck.PodRequest(w.id(), w.pod().requests(), w.pod().exclusiveCpus()));
+    }
+    OversizeCheck.Result fit = OversizeCheck.check(requests, checked, room, options);
+    SortedSet<String> unchecked = new TreeSet<>(fit.unchecked());
+    for (String r : perWorker.names()) {
+      if (!checked.contains(r)) {
+        unchecked.add(r);
+      }
+    }
+    fit.exclusiveCpus()
+        .forEach(
+            (id, cpus) ->
+                notes.add(id + " pins " + cpus + " whole CPUs per pod (static CPU manager)"));
+
+    // Items: one row per pod that fits, over the checked resources in name order.
+    String[] dims = checked.toArray(new String[0]);
+    long[] capacity = new long[dims.length];
+    for (int k = 0; k < dims.length; k++) {
+      capacity[k] = room.get(dims[k]);
+    }
+    TreeSet<String> oversizeIds = new TreeSet<>();
+    fit.oversize().forEach(o -> oversizeIds.add(o.workload().toString()));
+    List<long[]> rows = new ArrayList<>();
+    List<String> podIds = new ArrayList<>();
+    for (int i = 0; i < running.size(); i++) {
+      Workload w = running.get(i);
+      if (oversizeIds.contains(w.id().toString())) {
+        continue;
+      }
+      Resources pod = w.pod().requests().with(Resources.PODS, 1L);
+      long[] row = new long[dims.length];
+      for (int k = 0; k < dims.length; k++) {
+        row[k] = pod.get(dims[k]);
+      }
+      for (int r = 0; r < replicas.get(i); r++) {
+        rows.add(row);
+        if (in.placement()) {
+          podIds.add(w.id() + "#" + r);
+        }
+      }
+    }
+    long[][] items = rows.toArray(new long[0][]);
+    Packing packing = packer.pack(items, capacity);
+    int workers = packing.bins();
+    int lowerBound = LowerBound.of(items, capacity);
+
+    OptionalInt hosts =
+        in.workersPerHost().isPresent()
+            ? OptionalInt.of(
+                ceilDiv(workers, in.workersPerHost().getAsInt()) + in.hostFailures())
+            : OptionalInt.empty();
+
+    // Utilization over all workers: packed requests plus what every worker carries anyway.
+    long[] packed = new long[dims.length];
+    for (long[] row : items) {
+      for (int k = 0; k < dims.length; k++) {
+        packed[k] = Math.addExact(packed[k], row[k]);
+      }
+    }
+    SortedMap<String, BigDecimal> exact = new TreeMap<>();
+    SortedMap<String, Double> utilization = new TreeMap<>();
+    for (int k = 0; k < dims.length; k++) {
+      BigDecimal used =
+          BigDecimal.valueOf(packed[k])
+              .add(BigDecimal.valueOf(perWorker.get(dims[k])).multiply(BigDecimal.valueOf(workers)));
+      BigDecimal total =
+          BigDecimal.valueOf(allocatable.get(dims[k])).multiply(BigDecimal.valueOf(workers));
+      BigDecimal u =
+          total.signum() == 0 ? BigDecimal.ZERO : used.divide(total, 12, RoundingMode.HALF_UP);
+      exact.put(dims[k], u);
+      utilization.put(dims[k], u.setScale(4, RoundingMode.HALF_UP).doubleValue());
+    }
+    String binding = "none";
+    BigDecimal highest = BigDecimal.ZERO;
+    for (var e : exact.entrySet()) {
+      if (e.getValue().compareTo(highest) > 0) {
+        highest = e.getValue();
+        binding = e.getKey();
+      }
+    }
+    if (!binding.equals("none")) {
+      String other = binding.equals(Resources.CPU) ? Resources.MEMORY : Resources.CPU;
+      if (exact.containsKey(other)) {
+        BigDecimal pct =
+            exact.get(other).multiply(BigDecimal.valueOf(100)).divide(highest, 0, RoundingMode.HALF_UP);
+        notes.add(binding + " runs out at " + pct.toPlainString() + "% of " + other);
+      }
+    }
+
+    Optional<List<WorkerPlacement>> placement = Optional.empty();
+    if (in.placement()) {
+      List<List<String>> byWorker = new ArrayList<>();
+      for (int b = 0; b < workers; b++) {
+        byWorker.add(new ArrayList<>());
+      }
+      for (int i = 0; i < items.length; i++) {
+        byWorker.get(packing.binOf(i)).add(podIds.get(i));
+      }
+      int width = Math.max(3, Integer.toString(workers).length());
+      List<WorkerPlacement> list = new ArrayList<>();
+      for (int b = 0; b < workers; b++) {
+        list.add(new WorkerPlacement(workerName(b + 1, width), byWorker.get(b)));
+      }
+      placement = Optional.of(list);
+    }
+
+    return new Plan(
+        in.hostProfile(),
+        in.worker(),
+        allocatable,
+        perWorker,
+        room,
+        in.workersPerHost(),
+        workers,
+        lowerBound,
+        hosts,
+        fit.oversize(),
+        utilization,
+        binding,
+        placement,
+        List.copyOf(unchecked),
+        notes,
+        warnings);
+  }
+
+  /** {@code worker-001}: numbered from 1, zero-padded so names sort in number order. */
+  static String workerName(int number, int width) {
+    String digits = Integer.toString(number);
+    return "worker-" + "0".repeat(Math.max(0, width - digits.length())) + digits;
+  }
+
+  /** ceil(peak × growth). */
+  static int scaleReplicas(int peak, BigDecimal growth) {
+    return new BigDecimal(peak).multiply(growth).setScale(0, RoundingMode.CEILING).intValueExact();
+  }
+
+  /** The share of an allocatable amount that may be used; {@code pods} is a count, not scaled. */
+  static long scaled(String resource, long amount, int pct) {
+    if (resource.equals(Resources.PODS) || pct == 100) {
+      return amount;
+    }
+    return BigDecimal.valueOf(amount)
+        .multiply(BigDecimal.valueOf(pct))
+        .divide(BigDecimal.valueOf(100), 0, RoundingMode.FLOOR)
+        .longValueExact();
+  }
+
+  private static Resources roomOf(
+      Resources allocatable, SortedSet<String> checked, Resources perWorker, int pct) {
+    TreeMap<String, Long> room = new TreeMap<>();
+    for (String r : checked) {
+      room.put(r, Math.max(0, scaled(r, allocatable.get(r), pct) - perWorker.get(r)));
+    }
+    return Resources.of(room);
+  }
+
+  private static int ceilDiv(int a, int b) {
+    return a == 0 ? 0 : (a - 1) / b + 1;
+  }
+}
