@@ -3,6 +3,7 @@ package dev.numafit.capture;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.InputException;
 import dev.numafit.diag.SourceRef;
+import dev.numafit.host.Slit;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -119,7 +120,7 @@ public final class SysfsReader {
     return nodes;
   }
 
-  /** Each row has one value per node; SLIT rules (FACTS B2): diagonal 10, others 11..254 or 255. */
+  /** Each row has one value per node; SLIT rules (FACTS B2) as {@link Slit} checks them. */
   private void checkDistances(Path dir, List<NodeEntry> nodes, List<Diagnostic> errors) {
     int n = nodes.size();
     for (int i = 0; i < n; i++) {
@@ -135,13 +136,14 @@ public final class SysfsReader {
         continue;
       }
       for (int j = 0; j < n; j++) {
-        String problem = Slit.problem(i == j, row.get(j));
-        if (problem != null) {
-          errors.add(
-              Diagnostic.error(
-                  where,
-                  "distance to node" + nodes.get(j).id() + " is " + row.get(j) + ": " + problem));
-        }
+        final int column = j;
+        Slit.checkEntry(i, j, row.get(j))
+            .ifPresent(
+                p ->
+                    errors.add(
+                        Diagnostic.error(
+                            where,
+                            "distance to node" + nodes.get(column).id() + ": " + p.message())));
       }
     }
   }

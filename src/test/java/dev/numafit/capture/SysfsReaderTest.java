@@ -112,10 +112,10 @@ class SysfsReaderTest {
     InputException e = assertThrows(InputException.class, () -> new SysfsReader(root).read());
     assertEquals(
         List.of(
-            d0 + ":1: error: distance to node1 is 9: expected a remote distance of 11..254, or"
-                + " 255 for unreachable",
-            d1 + ":1: error: distance to node1 is 12: expected 10 for a node's distance to"
-                + " itself"),
+            d0 + ":1: error: distance to node1: expected a remote distance from 11 to 254, or 255"
+                + " for unreachable, got 9 (0-9 are reserved)",
+            d1 + ":1: error: distance to node1: expected 10 on the diagonal (local distance), got"
+                + " 12"),
         formatted(e));
   }
 
