@@ -102,10 +102,9 @@ public final class ProfileFactsWriter {
         .append(cores(a.get(Resources.CPU))).append(", memory ")
         .append(gib(a.get(Resources.MEMORY))).append(", pods ").append(a.get(Resources.PODS))
         .append('\n');
-    b.append("  (tiered default kube-reserved cpu ")
-        .append(f.allocatable().kubeReserved().get(Resources.CPU))
-        .append("m, memory ").append(mib(f.allocatable().kubeReserved().get(Resources.MEMORY)))
-        .append(", eviction memory.available ")
+    b.append("  (kube-reserved ").append(f.allocatable().kubeReserved().get(Resources.CPU))
+        .append("m cpu and ").append(mib(f.allocatable().kubeReserved().get(Resources.MEMORY)))
+        .append(" by the tiered default; eviction ")
         .append(mib(f.allocatable().eviction().get(Resources.MEMORY))).append(")\n");
     b.append('\n').append(CAUTION).append('\n');
     return b.toString();
