@@ -1,10 +1,132 @@
 package dev.numafit.cli;
 
-/** Entry point placeholder. */
+import dev.numafit.diag.InputException;
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import picocli.CommandLine;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.ParseResult;
+
+/**
+ * The command-line entry point. {@link #main} is the only place numafit calls {@link System#exit};
+ * everything else goes through {@link #run} so tests can drive the whole CLI with byte streams.
+ */
 public final class Main {
   private Main() {}
 
   public static void main(String... args) {
-    System.out.println("numafit");
+    boolean colour =
+        "1".equals(System.getProperty("numafit.stderrTty")) && System.getenv("NO_COLOR") == null;
+    PrintStream out = new PrintStream(System.out, false, StandardCharsets.UTF_8);
+    PrintStream err = new PrintStream(System.err, true, StandardCharsets.UTF_8);
+    int code = run(args, System.in, out, err, Path.of("").toAbsolutePath(), colour);
+    out.flush();
+    err.flush();
+    System.exit(code);
+  }
+
+  /**
+   * Runs numafit with {@code args} and returns its exit code (see {@link ExitCode}). The config
+   * file {@code numafit.yaml} is looked for in the process's current folder.
+   */
+  public static int run(String[] args, InputStream in, PrintStream out, PrintStream err) {
+    return run(args, in, out, err, Path.of("").toAbsolutePath(), false);
+  }
+
+  static int run(
+      String[] args,
+      InputStream in,
+      PrintStream out,
+      PrintStream err,
+      Path workingDir,
+      boolean colour) {
+    Console console = new Console(in, out, err, workingDir, colour);
+    boolean verbose = Arrays.asList(args).contains("--verbose");
+    Errors errors = new Errors(console, verbose);
+    String[] effective;
+    try {
+      effective = withConfig(args, console);
+    } catch (InputException ex) {
+      ex.diagnostics().forEach(console::report);
+      return ExitCode.USAGE_OR_INPUT.code();
+    }
+    CommandLine cl = commandLine(console, errors);
+    int code = cl.execute(effective);
+    cl.getOut().flush();
+    cl.getErr().flush();
+    out.flush();
+    return code;
+  }
+
+  private static CommandLine commandLine(Console console, Errors errors) {
+    CommandLine cl = new CommandLine(new NumafitCommand(console));
+    cl.setOut(new PrintWriter(console.out(), true));
+    cl.setErr(new PrintWriter(console.err(), true));
+    cl.setCaseInsensitiveEnumValuesAllowed(true);
+    cl.setExitCodeExceptionMapper(errors);
+    cl.setExecutionExceptionHandler(errors);
+    cl.setParameterExceptionHandler(errors);
+    return cl;
+  }
+
+  /**
+   * The arguments with the config file's options inserted right after {@code plan}, for every
+   * option the command line does not give itself. Other commands, and command lines picocli
+   * rejects, pass through unchanged (execute reports the problem).
+   */
+  static String[] withConfig(String[] args, Console console) throws InputException {
+    CommandLine probe = commandLine(console, new Errors(console, false));
+    ParseResult root;
+    try {
+      root = probe.parseArgs(args);
+    } catch (CommandLine.ParameterException ex) {
+      return args;
+    }
+    ParseResult sub = root.subcommand();
+    if (sub == null || !sub.commandSpec().name().equals("plan") || sub.isUsageHelpRequested()
+        || sub.isVersionHelpRequested()) {
+      return args;
+    }
+    Path config;
+    if (sub.hasMatchedOption("--config")) {
+      config = console.workingDir().resolve(sub.<Path>matchedOptionValue("--config", null));
+      if (!Files.isRegularFile(config)) {
+        throw new InputException(
+            dev.numafit.diag.Diagnostic.error(
+                null, "--config " + sub.<Path>matchedOptionValue("--config", null)
+                    + ": no such file"));
+      }
+    } else {
+      config = console.workingDir().resolve(ConfigFile.DEFAULT_NAME);
+      if (!Files.isRegularFile(config)) {
+        return args;
+      }
+    }
+    CommandSpec plan = sub.commandSpec();
+    List<ConfigFile.Entry> entries = new ArrayList<>();
+    for (ConfigFile.Entry e : ConfigFile.read(config, displayPath(config, console).toString(), plan)) {
+      if (!sub.hasMatchedOption(e.option())) {
+        entries.add(e);
+      }
+    }
+    int at = Arrays.asList(args).indexOf("plan");
+    List<String> merged = new ArrayList<>(Arrays.asList(args).subList(0, at + 1));
+    merged.addAll(ConfigFile.toArgs(entries));
+    merged.addAll(Arrays.asList(args).subList(at + 1, args.length));
+    return merged.toArray(String[]::new);
+  }
+
+  /** The config path relative to the working folder where it lies inside it, for messages. */
+  private static Path displayPath(Path config, Console console) {
+    Path abs = config.toAbsolutePath().normalize();
+    Path wd = console.workingDir().toAbsolutePath().normalize();
+    return abs.startsWith(wd) ? wd.relativize(abs) : abs;
   }
 }

@@ -1,0 +1,174 @@
+package dev.numafit.cli;
+
+import java.math.BigDecimal;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParentCommand;
+
+/** {@code numafit plan}: picocli wiring only; rules in {@link PlanOptions}, work in {@link Pipeline}. */
+@Command(
+    name = "plan",
+    sortOptions = false,
+    usageHelpAutoWidth = false,
+    mixinStandardHelpOptions = true,
+    versionProvider = VersionProvider.class,
+    description = {
+      "Sizes worker VMs that fit one NUMA node of each host profile, packs the workload's pods at"
+          + " peak onto them, and reports workers and hosts needed, oversize pods and"
+          + " utilization.",
+      "Options may also come from numafit.yaml in the current folder or --config FILE; flags"
+          + " given here override them."
+    },
+    footerHeading = "%nExamples:%n",
+    footer = {
+      "  numafit plan -f manifests-examples/parcel-delivery/ \\",
+      "      --host-profile host-profiles/two-socket-one-node-per-socket.yaml",
+      "  numafit plan -f app.yaml -f infra/ --worker cpu=16,memory=64Gi -o json",
+      "  render-manifests | numafit plan -f - --worker cpu=8,memory=32Gi",
+      "  numafit plan -f manifests/ --host-profile a.yaml --host-profile b.yaml \\",
+      "      --host-failures 1 --max-utilization 80 --kubelet-config out/",
+      "",
+      "Exit codes: 0 done (oversize pods are listed, not an error), 2 usage or input"
+          + " error, 3 internal error."
+    })
+public final class PlanCommand implements Callable<Integer> {
+  @ParentCommand NumafitCommand root;
+
+  @Mixin CommonOptions common = new CommonOptions();
+
+  @Option(
+      names = {"-f", "--filename"},
+      paramLabel = "PATH",
+      description =
+          "Manifest file (.yaml, .yml, .json), folder (read recursively) or - for standard input."
+              + " Repeatable.")
+  List<String> files = new ArrayList<>();
+
+  @Option(
+      names = "--host-profile",
+      paramLabel = "FILE",
+      description = "Host profile (see docs/host-profile.md). Repeatable: one plan each, compared.")
+  List<Path> hostProfiles = new ArrayList<>();
+
+  @Option(
+      names = "--worker",
+      paramLabel = "cpu=N,memory=Q[,res=Q...]",
+      description =
+          "Worker capacity given directly, e.g. cpu=16,memory=64Gi. With --host-profile it is"
+              + " placed on that host; without, the plan counts workers, not hosts.")
+  String worker;
+
+  @Option(
+      names = "--kube-reserved",
+      paramLabel = "cpu=Q,memory=Q",
+      description = "kube-reserved on each worker (default: the tiered scale in docs/shapes.md).")
+  String kubeReserved;
+
+  @Option(
+      names = "--system-reserved",
+      paramLabel = "cpu=Q,memory=Q",
+      description = "system-reserved on each worker (default: none).")
+  String systemReserved;
+
+  @Option(
+      names = "--eviction-hard",
+      paramLabel = "memory.available=Q",
+      description = "Hard eviction threshold (default: memory.available=100Mi).")
+  String evictionHard;
+
+  @Option(
+      names = "--max-pods",
+      paramLabel = "N",
+      description = "The kubelet's maxPods (default: 110).")
+  Integer maxPods;
+
+  @Option(
+      names = "--kubelet-reserve",
+      paramLabel = "none",
+      description =
+          "none: no kube-reserved, system-reserved or eviction threshold (allocatable equals"
+              + " capacity).")
+  String kubeletReserve;
+
+  @Option(
+      names = "--per-worker",
+      paramLabel = "cpu=Q,memory=Q[,pods=N]",
+      description = "Demand on every worker that is not in the manifests (node agents).")
+  String perWorker;
+
+  @Option(
+      names = "--replicas",
+      paramLabel = "peak|declared",
+      description =
+          "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
+              + " spec.replicas.")
+  ReplicasOption replicas = ReplicasOption.PEAK;
+
+  @Option(
+      names = "--host-failures",
+      paramLabel = "K",
+      description = "Add K whole hosts of headroom (default: 0).")
+  int hostFailures;
+
+  @Option(
+      names = "--max-utilization",
+      paramLabel = "PCT",
+      description = "Fill each worker's room only to PCT percent (default: 100).")
+  int maxUtilization = 100;
+
+  @Option(
+      names = "--growth",
+      paramLabel = "FACTOR",
+      description = "Multiply replica counts by FACTOR, rounded up (default: 1).")
+  BigDecimal growth = BigDecimal.ONE;
+
+  @Option(
+      names = "--cpu-overcommit",
+      paramLabel = "R",
+      description =
+          "Let a host carry R vCPUs per core (default: 1; above 1 NUMA locality suffers).")
+  BigDecimal cpuOvercommit = BigDecimal.ONE;
+
+  @Option(
+      names = "--vcpu-per-thread",
+      description = "Count hardware threads, not cores, as vCPUs.")
+  boolean vcpuPerThread;
+
+  @Option(
+      names = "--placement",
+      description = "List which pods go on which worker.")
+  boolean placement;
+
+  @Option(
+      names = "--include-custom",
+      description = "Size custom resources that embed pod templates (a guess, flagged).")
+  boolean includeCustom;
+
+  @Option(
+      names = "--skip-invalid",
+      description = "Skip invalid documents (listed) instead of failing with exit code 2.")
+  boolean skipInvalid;
+
+  @Option(
+      names = "--kubelet-config",
+      paramLabel = "DIR",
+      description = "Write a KubeletConfiguration per plan into DIR, matching what it assumed.")
+  Path kubeletConfig;
+
+  @Option(
+      names = "--config",
+      paramLabel = "FILE",
+      description = "Read options from FILE (default: numafit.yaml in the current folder).")
+  Path config;
+
+  @Override
+  public Integer call() throws Exception {
+    PlanOptions options = PlanOptions.check(this);
+    return Pipeline.plan(options, root.console());
+  }
+}

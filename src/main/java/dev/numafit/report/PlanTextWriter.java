@@ -1,0 +1,166 @@
+package dev.numafit.report;
+
+import dev.numafit.plan.Oversize;
+import dev.numafit.plan.Plan;
+import dev.numafit.plan.WorkerPlacement;
+import dev.numafit.shape.WorkerShape;
+import java.math.BigDecimal;
+import java.util.stream.Collectors;
+
+/**
+ * {@code plan -o text}: per plan the worker shape, its allocatable, what every worker carries
+ * anyway, workers and hosts needed, utilization, oversize pods and notes; then a comparison table
+ * when there are several plans, and the caution line. Warnings are printed by the CLI to standard
+ * error.
+ */
+public final class PlanTextWriter implements ReportWriter<PlanReport> {
+  @Override
+  public String render(PlanReport report) {
+    StringBuilder sb = new StringBuilder();
+    DemandTotals t = DemandTotals.of(report.demand());
+    sb.append(
+        TextSupport.wrap(
+            "",
+            "  ",
+            "Demand: "
+                + report.demand().workloads().size()
+                + " workloads, "
+                + t.podsAtPeak()
+                + " pods at peak requesting "
+                + Units.vector(t.requestsAtPeak())
+                + "."));
+    if (!report.demand().unsizedCustom().isEmpty()) {
+      sb.append(
+          TextSupport.wrap(
+              "",
+              "  ",
+              "Not sized: "
+                  + report.demand().unsizedCustom().size()
+                  + (report.demand().unsizedCustom().size() == 1 ? " custom workload" : " custom"
+                      + " workloads")
+                  + " (see numafit demand; --include-custom sizes them as a guess)."));
+    }
+    if (!report.demand().skippedByKind().isEmpty()) {
+      sb.append(DemandTextWriter.skippedLine(report.demand().skippedByKind()));
+    }
+    for (Plan p : report.plans()) {
+      sb.append('\n').append(plan(p));
+    }
+    if (!report.comparison().isEmpty()) {
+      sb.append('\n').append(comparison(report));
+    }
+    sb.append('\n').append(TextSupport.wrap("", "", TextSupport.CAUTION));
+    return sb.toString();
+  }
+
+  private static String plan(Plan p) {
+    StringBuilder sb = new StringBuilder();
+    sb.append(
+        p.hostProfile().map(n -> "Plan for host profile " + n).orElse("Plan for the given worker"))
+        .append('\n');
+    TextTable kv = new TextTable("", "");
+    WorkerShape w = p.worker();
+    kv.row("Worker", shape(w));
+    kv.row("Allocatable", Units.vector(p.allocatable()));
+    kv.row("On every worker", Units.vector(p.perWorkerDemand()));
+    kv.row("Room for pods", Units.vector(p.room()));
+    if (p.workersPerHost().isPresent()) {
+      kv.row("Workers per host", Integer.toString(p.workersPerHost().getAsInt()));
+    }
+    kv.row(
+        "Workers needed",
+        p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")");
+    if (p.hostsNeeded().isPresent()) {
+      kv.row("Hosts needed", Integer.toString(p.hostsNeeded().getAsInt()));
+    }
+    kv.row("Utilization", utilization(p));
+    // The key/value table has no header: drop its first (blank) line.
+    String rendered = kv.render("  ");
+    sb.append(rendered.substring(rendered.indexOf('\n') + 1));
+    if (!p.bindingResource().isEmpty()) {
+      sb.append(TextSupport.wrap("  ", "    ", "Runs out first: " + p.bindingResource() + "."));
+    }
+    if (p.oversize().isEmpty()) {
+      sb.append("  Oversize pods: none\n");
+    } else {
+      sb.append("  Oversize pods (not packed; each needs a worker wider than one NUMA node):\n");
+      TextTable o = new TextTable("WORKLOAD", "OVER BY", "SMALLEST SHAPE");
+      for (Oversize x : p.oversize()) {
+        o.row(x.workload().toString(), Units.vector(x.exceeds()), shapeLabel(x.smallestShape()));
+      }
+      sb.append(o.render("    "));
+    }
+    if (!p.unchecked().isEmpty()) {
+      sb.append(
+          TextSupport.wrap(
+              "  ",
+              "    ",
+              "Not checked: " + String.join(", ", p.unchecked()) + ", no capacity given."));
+    }
+    for (String note : p.notes()) {
+      sb.append(TextSupport.wrap("  Note: ", "    ", note));
+    }
+    if (p.placement().isPresent()) {
+      sb.append("  Placement:\n");
+      for (WorkerPlacement wp : p.placement().get()) {
+        sb.append(
+            TextSupport.wrap(
+                "    " + wp.worker() + ": ",
+                "      ",
+                wp.pods().isEmpty() ? "(empty)" : String.join(" ", wp.pods())));
+      }
+    }
+    return sb.toString();
+  }
+
+  private static String shape(WorkerShape w) {
+    String where =
+        switch (w.kind()) {
+          case ONE_NODE -> "one per NUMA node";
+          case SPLIT_NODE -> w.workersPerNode() + " per NUMA node";
+          case TWO_NODES -> "spans 2 NUMA nodes";
+          case SOCKET -> "spans a socket";
+          case HOST -> "spans the host";
+          case EXPLICIT -> "as given";
+        };
+    return w.vcpus() + " vCPU, " + Units.bytes(w.memoryBytes()) + " memory (" + where + ")";
+  }
+
+  private static String shapeLabel(String s) {
+    return s.equals("none") ? "larger than a whole host" : s;
+  }
+
+  private static String utilization(Plan p) {
+    if (p.utilization().isEmpty()) {
+      return "-";
+    }
+    return p.utilization().entrySet().stream()
+        .map(e -> e.getKey() + " " + Units.percent(e.getValue()))
+        .collect(Collectors.joining(", "));
+  }
+
+  private static String comparison(PlanReport report) {
+    StringBuilder sb = new StringBuilder("Comparison:\n");
+    TextTable t =
+        new TextTable(
+            "PROFILE", ">VCPU", ">MEMORY", ">PER HOST", ">WORKERS", ">HOSTS", ">OVERSIZE", ">COST");
+    for (ComparisonRow r : report.comparison()) {
+      t.row(
+          r.hostProfile().orElse("(--worker)"),
+          Long.toString(r.vcpus()),
+          Units.bytes(r.memoryBytes()),
+          r.workersPerHost().isPresent() ? Integer.toString(r.workersPerHost().getAsInt()) : "-",
+          Integer.toString(r.workersNeeded()),
+          r.hostsNeeded().isPresent() ? Integer.toString(r.hostsNeeded().getAsInt()) : "-",
+          Integer.toString(r.oversizeCount()),
+          r.totalCost().map(BigDecimal::toPlainString).orElse("-"));
+    }
+    sb.append(t.render("  "));
+    boolean anyCost = report.comparison().stream().anyMatch(r -> r.totalCost().isPresent());
+    if (anyCost) {
+      sb.append("  COST is the profile's relative cost per host times hosts needed.\n");
+    }
+    return sb.toString();
+  }
+
+}

@@ -1,0 +1,40 @@
+package dev.numafit.report;
+
+/** Line wrapping for the text reports, which aim at an 80-column terminal. */
+final class TextSupport {
+  static final int WIDTH = 80;
+
+  /** The caution printed at the end of every plan, in text output. */
+  static final String CAUTION =
+      "Caution: sized from declared requests. Verify against your hardware's documentation and"
+          + " a load test; follow your organisation's change practice.";
+
+  private TextSupport() {}
+
+  /**
+   * {@code text} wrapped at word boundaries to {@link #WIDTH} columns, the first line after {@code
+   * first}, the rest after {@code next}; a word longer than a line is kept whole.
+   */
+  static String wrap(String first, String next, String text) {
+    StringBuilder out = new StringBuilder();
+    StringBuilder line = new StringBuilder(first);
+    boolean lineHasWord = false;
+    for (String word : text.split(" ")) {
+      if (word.isEmpty()) {
+        continue;
+      }
+      if (lineHasWord && line.length() + 1 + word.length() > WIDTH) {
+        out.append(line).append('\n');
+        line = new StringBuilder(next);
+        lineHasWord = false;
+      }
+      if (lineHasWord) {
+        line.append(' ');
+      }
+      line.append(word);
+      lineHasWord = true;
+    }
+    out.append(line.toString().stripTrailing()).append('\n');
+    return out.toString();
+  }
+}
