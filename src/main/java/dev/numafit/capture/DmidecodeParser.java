@@ -142,8 +142,8 @@ public final class DmidecodeParser {
     void field(String key, String value, SourceRef at, List<Diagnostic> errors) {
       switch (key) {
         case "Size" -> size(value, at, errors);
-        case "Locator" -> locator = value;
-        case "Bank Locator" -> bankLocator = value;
+        case "Locator" -> locator = known(value) ? value : "";
+        case "Bank Locator" -> bankLocator = known(value) ? value : "";
         case "Type" -> type = known(value) ? value : "";
         case "Speed" -> speed = speed(key, value, at, errors);
         case "Configured Memory Speed", "Configured Clock Speed" ->

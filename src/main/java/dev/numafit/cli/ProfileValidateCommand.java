@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.ParentCommand;
 
@@ -34,6 +35,9 @@ public final class ProfileValidateCommand implements Callable<Integer> {
 
   @Parameters(arity = "1..*", paramLabel = "FILE", description = "Host profile files.")
   List<Path> files;
+
+  @Option(names = "--verbose", description = "Print a stack trace with an internal error.")
+  boolean verbose;
 
   @Override
   public Integer call() {

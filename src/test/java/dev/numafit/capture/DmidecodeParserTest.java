@@ -67,6 +67,27 @@ class DmidecodeParserTest {
   }
 
   @Test
+  void parse_olderFieldNamesAndUnits_readAsTheSameNumbers() throws Exception {
+    // Older dmidecode releases print "Configured Clock Speed" and the unit MHz for the same
+    // transfer-rate figure (from memory; FACTS B4 describes the current names).
+    List<MemoryDevice> d =
+        DmidecodeParser.parse(
+            TextFile.of(
+                "t.txt",
+                record(
+                    "0x0001",
+                    "Size: 16384 MB",
+                    "Locator: DIMM_A1",
+                    "Bank Locator: Not Specified",
+                    "Speed: 2666 MHz",
+                    "Configured Clock Speed: 2400 MHz")));
+    assertEquals(2666, d.get(0).speedMts());
+    assertEquals(2400, d.get(0).configuredSpeedMts());
+    assertEquals("", d.get(0).bankLocator());
+    assertEquals("DIMM_A1", d.get(0).label());
+  }
+
+  @Test
   void parse_fixture_readsLocatorsAndConfiguredSpeed() throws Exception {
     List<MemoryDevice> d = DmidecodeParser.parse(Fixtures.text("capture/one-node-unbalanced.dmidecode.txt"));
     assertEquals(4, d.size());

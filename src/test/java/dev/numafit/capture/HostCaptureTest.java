@@ -163,4 +163,23 @@ class HostCaptureTest {
         fromLscpu.nodes().stream().map(CapturedNode::cpus).toList());
     assertEquals(Optional.empty(), fromLscpu.distances());
   }
+
+  @Test
+  void derive_modulesFarAboveKernelMemory_warnsMappingToConfirm() throws Exception {
+    // 8 × 16 GiB of modules against a node whose MemTotal is 15.55 GiB.
+    CapturedHost h =
+        withDimms(new SysfsReader(Fixtures.sysfs("one-node")).read(), "four-nodes-smt.dmidecode.txt");
+    assertTrue(
+        warned(h, "node 0: the kernel reports 15.55 GiB but the modules mapped to it total 128 GiB"),
+        h.warnings().toString());
+  }
+
+  @Test
+  void derive_slotSocketsDisagreeWithCpus_notMappedAndWarned() throws Exception {
+    CapturedHost h =
+        withDimms(new SysfsReader(Fixtures.sysfs("one-node")).read(), "two-sockets.dmidecode.txt");
+    assertTrue(warned(h, "the slot locators name 2 sockets but the CPUs are on 1"));
+    assertTrue(warned(h, "channel population to confirm"));
+    assertEquals(List.of(), h.nodes().get(0).channels());
+  }
 }
