@@ -67,8 +67,16 @@ class HostCaptureTest {
   @Test
   void derive_nodeWithoutMemory_warnsItCannotHoldAWorker() throws Exception {
     CapturedHost h = sysfs("node-without-memory");
-    assertEquals(0L, h.nodes().get(1).memoryBytes());
-    assertTrue(warned(h, "node 1 has 4 CPUs but no memory"), h.warnings().toString());
+    // The fixture's node 1 has MemTotal 0: it is left out, node 0 stays with its 4 cores.
+    assertEquals(1, h.nodes().size());
+    assertEquals(0, h.nodes().get(0).sourceId());
+    assertEquals(1, h.nodesPerSocket());
+    assertEquals(Optional.of(List.of(List.of(10))), h.distances());
+    assertTrue(
+        warned(h, "node 1 has 4 CPUs but no memory: a worker there would run on another node's"
+            + " memory, so it cannot hold a one-node worker; left out of the profile with its 4"
+            + " cores"),
+        h.warnings().toString());
   }
 
   @Test
