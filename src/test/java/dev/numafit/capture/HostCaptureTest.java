@@ -190,4 +190,48 @@ class HostCaptureTest {
     assertTrue(warned(h, "channel population to confirm"));
     assertEquals(List.of(), h.nodes().get(0).channels());
   }
+
+  @Test
+  void derive_memoryOnlyNode_leftOutWithWarning() throws Exception {
+    CapturedTopology t = new SysfsReader(Fixtures.sysfs("two-sockets")).read();
+    NodeEntry n0 = t.nodes().get(0);
+    NodeEntry n1 = t.nodes().get(1);
+    // A third node with memory and no CPUs, as a memory expander shows up.
+    NodeEntry memoryOnly =
+        new NodeEntry(2, List.of(), 64 * GIB, new java.util.TreeMap<>(), List.of(30, 30, 10),
+            n1.source());
+    CapturedTopology withExpander =
+        new CapturedTopology(
+            t.cpuSource(),
+            t.cpus(),
+            List.of(),
+            List.of(
+                new NodeEntry(0, n0.cpus(), n0.memoryBytes(), n0.hugepages(), List.of(10, 21, 30),
+                    n0.source()),
+                new NodeEntry(1, n1.cpus(), n1.memoryBytes(), n1.hugepages(), List.of(21, 10, 30),
+                    n1.source()),
+                memoryOnly));
+    CapturedHost h = HostCapture.derive(withExpander, Optional.empty(), List.of());
+    assertEquals(2, h.nodes().size());
+    assertEquals(Optional.of(List.of(List.of(10, 21), List.of(21, 10))), h.distances());
+    assertTrue(
+        warned(h, "node 2 has no online CPUs (a memory-only node with 64 GiB): left out of the"
+            + " profile"),
+        h.warnings().toString());
+  }
+
+  @Test
+  void derive_modulesOfTwoTypes_typeUnknownWithWarning() throws Exception {
+    String text =
+        "Handle 0x0001, DMI type 17, 92 bytes\nMemory Device\n\tSize: 8 GB\n\tLocator: DIMM_A1\n"
+            + "\tType: DDR4\n\nHandle 0x0002, DMI type 17, 92 bytes\nMemory Device\n"
+            + "\tSize: 8 GB\n\tLocator: DIMM_B1\n\tType: DDR5\n";
+    CapturedHost h =
+        HostCapture.derive(
+            new SysfsReader(Fixtures.sysfs("one-node")).read(),
+            Optional.of("m.txt"),
+            DmidecodeParser.parse(TextFile.of("m.txt", text)));
+    assertEquals("", h.memoryType());
+    assertTrue(warned(h, "modules of different types [DDR4, DDR5]: memory type left unknown"));
+  }
 }
