@@ -79,7 +79,7 @@ public final class ManifestReader {
    *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
    */
   public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
-    Session s = new Session(opts);
+    Reading s = new Reading(opts);
     boolean stdinRead = false;
     for (String path : paths) {
       if ("-".equals(path)) {
@@ -124,7 +124,7 @@ public final class ManifestReader {
   private record Overhead(SortedMap<String, BigDecimal> podFixed, SourceRef source) {}
 
   /** State of one {@link #read} call. */
-  private final class Session {
+  private final class Reading {
     final ReadOptions opts;
     final List<Diagnostic> diags = new ArrayList<>();
     final Map<String, SourceRef> seen = new LinkedHashMap<>();
@@ -136,7 +136,7 @@ public final class ManifestReader {
     final Map<String, String> skipped = new LinkedHashMap<>();
     int unnamed;
 
-    Session(ReadOptions opts) {
+    Reading(ReadOptions opts) {
       this.opts = opts;
     }
 

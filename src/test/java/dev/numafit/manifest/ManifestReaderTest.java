@@ -83,7 +83,7 @@ class ManifestReaderTest {
       spec:
         runtimeClassName: sandboxed
         containers:
-        - name: busybox-ctr
+        - name: first-ctr
           image: example.invalid/app:1
           resources:
             limits:
