@@ -309,14 +309,14 @@ public final class ManifestReader {
     void object(LocatedDocument doc, String ptr, JsonNode node, String kind) {
       String apiVersion = text(node.get("apiVersion"));
       JsonNode meta = node.path("metadata");
-      String namespace = text(meta.get("namespace"));
+      String namespace = scalar(meta.get("namespace"));
       if (namespace == null || namespace.isBlank()) {
         namespace = "default";
       }
-      String name = text(meta.get("name"));
+      String name = scalar(meta.get("name"));
       boolean named = name != null && !name.isBlank();
       if (!named) {
-        String generate = text(meta.get("generateName"));
+        String generate = scalar(meta.get("generateName"));
         name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
       }
       WorkloadId id = new WorkloadId(namespace, kind, name);
@@ -731,6 +731,15 @@ public final class ManifestReader {
           if (de instanceof MismatchedInputException m) {
             target = m.getTargetType();
           }
+          Throwable root = de;
+          while (root.getCause() != null) {
+            root = root.getCause();
+          }
+          // fabric8's Quantity deserializer rejects some forms (1e3m, 1K) with a bare message.
+          String rootMessage = String.valueOf(root.getMessage()).toLowerCase(Locale.ROOT);
+          if (target == null && rootMessage.contains("quantity")) {
+            target = io.fabric8.kubernetes.api.model.Quantity.class;
+          }
         }
         String field = dotted.length() == 0 ? "object" : dotted.toString();
         JsonNode value = ctx.doc.at(pointer.toString());
@@ -902,6 +911,11 @@ public final class ManifestReader {
 
   private static String text(JsonNode n) {
     return n != null && n.isString() ? n.asString() : null;
+  }
+
+  /** A string or number as text ({@code name: 123} names an object "123"), else null. */
+  private static String scalar(JsonNode n) {
+    return n != null && (n.isString() || n.isNumber()) ? n.asString() : null;
   }
 
   /**

@@ -917,4 +917,16 @@ class ManifestReaderTest {
                 + " used"),
         messages(d, Severity.WARNING));
   }
+
+  @Test
+  void read_quantityWithTwoSuffixes_errorNamingField() throws IOException {
+    // Quantity reference (K10): a number takes one suffix, a unit or an exponent, not both.
+    Path f = write("suffix.yaml", pod("twice", "requests: {cpu: 1e3m}"));
+    assertEquals(
+        List.of(
+            f
+                + ":9: error: default/Pod/twice: spec.containers[0].resources.requests.cpu expects a"
+                + " Kubernetes quantity (expected e.g. 500m, 2, 1.5Gi), got \"1e3m\""),
+        messages(read(f), Severity.ERROR));
+  }
 }
