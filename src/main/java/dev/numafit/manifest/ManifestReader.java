@@ -119,7 +119,7 @@ public final class ManifestReader {
       int maxReplicas,
       SourceRef source) {}
 
-  private record NamedLimits(String name, LimitDefaults defaults) {}
+  private record NamedLimits(String name, LimitDefaults defaults, SourceRef source) {}
 
   private record Overhead(SortedMap<String, BigDecimal> podFixed, SourceRef source) {}
 
@@ -600,7 +600,7 @@ public final class ManifestReader {
           if (ctx.errors.isEmpty()) {
             limitRanges
                 .computeIfAbsent(id.namespace(), n -> new TreeMap<>())
-                .put(key, new NamedLimits(id.name(), d));
+                .put(key, new NamedLimits(id.name(), d, source));
           }
         }
         case RUNTIME_CLASS -> {
@@ -763,8 +763,27 @@ public final class ManifestReader {
             List<NamedLimits> sorted = new ArrayList<>(byKey.values());
             sorted.sort((a, b) -> a.name().compareTo(b.name()));
             LimitDefaults d = LimitDefaults.NONE;
+            List<NamedLimits> withDefaults = new ArrayList<>();
             for (NamedLimits n : sorted) {
               d = d.then(n.defaults());
+              if (!n.defaults().isEmpty()) {
+                withDefaults.add(n);
+              }
+            }
+            if (withDefaults.size() > 1) {
+              // "Limit Ranges": with two or more, which default applies is not deterministic.
+              NamedLimits first = withDefaults.get(0);
+              diags.add(
+                  Diagnostic.warning(
+                      first.source(),
+                      "namespace "
+                          + ns
+                          + " has "
+                          + withDefaults.size()
+                          + " LimitRanges with container defaults; Kubernetes applies them in no"
+                          + " fixed order, so the first by name ("
+                          + first.name()
+                          + ") wins here for each resource it sets"));
             }
             defaults.put(ns, d);
           });
