@@ -193,9 +193,8 @@ final class Pipeline {
   }
 
   private static Demand readDemand(
-      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
-    ReplicaMode mode = replicas == ReplicasOption.DECLARED ? ReplicaMode.DECLARED : ReplicaMode.PEAK;
-    return new ManifestReader().read(files, console.in(), new ReadOptions(mode, includeCustom));
+      List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
+    return new ManifestReader().read(files, console.in(), new ReadOptions(replicas, includeCustom));
   }
 
   /**
