@@ -50,6 +50,9 @@ public final class NumafitCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     throw new CommandLine.ParameterException(
-        spec.commandLine(), "missing command (expected one of: demand, plan, completion, help)");
+        spec.commandLine(),
+        "missing command (expected one of: "
+            + String.join(", ", spec.subcommands().keySet())
+            + ")");
   }
 }
