@@ -104,8 +104,14 @@ final class DocumentReader {
           while ((n = p.nextToken()) == JsonToken.PROPERTY_NAME) {
             String name = p.currentName();
             String child = pointer + "/" + LocatedDocument.segment(name);
+            int keyLine = offset + line(p.currentTokenLocation());
             JsonToken v = p.nextToken();
             o.set(name, build(p, v, child, positions, offset));
+            if (positions.get(child) != keyLine) {
+              // A block mapping or list starts on the line after its key; keep the key's line
+              // so a message can point at "resources:" itself.
+              positions.put(child + LocatedDocument.KEY_SUFFIX, keyLine);
+            }
           }
           return o;
         }

@@ -10,6 +10,7 @@ import dev.numafit.demand.ReplicaRules;
 import dev.numafit.demand.Replicas;
 import dev.numafit.demand.Workload;
 import dev.numafit.demand.WorkloadId;
+import dev.numafit.demand.WorkloadSource;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
 import io.fabric8.kubernetes.api.model.LimitRange;
@@ -78,6 +79,15 @@ public final class ManifestReader {
    *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
    */
   public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
+    return readLocated(paths, stdin, opts).demand();
+  }
+
+  /**
+   * Reads every path in order, as {@link #read}, and also returns where each workload's pod
+   * template, replica count and containers are written, for messages that point at the line to
+   * change.
+   */
+  public ManifestRead readLocated(List<String> paths, InputStream stdin, ReadOptions opts) {
     Session s = new Session(opts);
     boolean stdinRead = false;
     for (String path : paths) {
@@ -93,7 +103,19 @@ public final class ManifestReader {
       }
       s.readPath(path);
     }
-    return s.finish();
+    return new ManifestRead(s.finish(), s.sources);
+  }
+
+  /**
+   * Reads manifests given as text, each named as it should appear in messages (for example {@code
+   * main:deploy/app.yaml} for a file read from a git revision), in name order. A name ending in
+   * {@code .json} is read as JSON.
+   */
+  public ManifestRead readTexts(SortedMap<String, String> texts, ReadOptions opts) {
+    Session s = new Session(opts);
+    texts.forEach((name, text) -> s.readText(name, text,
+        name.toLowerCase(Locale.ROOT).endsWith(".json")));
+    return new ManifestRead(s.finish(), s.sources);
   }
 
   /** A pod-bearing object waiting for namespace-wide rules (LimitRange, RuntimeClass, HPA). */
@@ -104,11 +126,45 @@ public final class ManifestReader {
       Replicas replicas,
       boolean perWorker,
       boolean custom,
-      boolean scalable) {}
+      boolean scalable,
+      Lines lines) {}
+
+  /** Where a candidate's pod template, replica count and containers are written. */
+  private record Lines(
+      SourceRef template, Optional<SourceRef> replicas, SortedMap<String, SourceRef> containers) {}
+
+  /**
+   * The lines of a pod spec at {@code specPtr}: the template, each container's {@code resources}
+   * (the container's own line when it has none) and the replica count at {@code replicasPtr} when
+   * written.
+   */
+  private static Lines lines(LocatedDocument doc, String specPtr, String replicasPtr) {
+    SortedMap<String, SourceRef> containers = new TreeMap<>();
+    for (String list : List.of("/initContainers", "/containers")) {
+      JsonNode arr = doc.at(specPtr + list);
+      if (!arr.isArray()) {
+        continue;
+      }
+      for (int i = 0; i < arr.size(); i++) {
+        String cptr = specPtr + list + "/" + i;
+        String name = text(arr.get(i).get("name"));
+        String key = name == null ? "#" + i : name;
+        String at = arr.get(i).has("resources") ? cptr + "/resources" : cptr;
+        containers.putIfAbsent(key, new SourceRef(doc.file(), doc.keyLine(at)));
+      }
+    }
+    Optional<SourceRef> replicas =
+        replicasPtr != null && doc.lines().containsKey(replicasPtr)
+            ? Optional.of(new SourceRef(doc.file(), doc.line(replicasPtr)))
+            : Optional.empty();
+    String templatePtr = specPtr.endsWith("/spec") && !specPtr.equals("/spec")
+        ? specPtr.substring(0, specPtr.length() - 5) : specPtr;
+    return new Lines(new SourceRef(doc.file(), doc.keyLine(templatePtr)), replicas, containers);
+  }
 
   private record Autoscaler(
       String label, String namespace, String targetKind, String targetName, int maxReplicas,
-      SourceRef source) {}
+      SourceRef source, SourceRef maxReplicasAt) {}
 
   private record NamedLimits(String name, LimitDefaults defaults) {}
 
@@ -125,6 +181,7 @@ public final class ManifestReader {
     final Map<String, Map<String, NamedLimits>> limitRanges = new TreeMap<>();
     final Map<String, Overhead> runtimeClasses = new TreeMap<>();
     final Map<String, String> skipped = new LinkedHashMap<>();
+    final SortedMap<WorkloadId, WorkloadSource> sources = new TreeMap<>();
     int unnamed;
 
     Session(ReadOptions opts) {
@@ -337,7 +394,7 @@ public final class ManifestReader {
             : new WorkloadId(namespace, kind, name + "[" + templateLabel(tptr.substring(ptr.length()))
                 + "]");
         found.add(new Candidate(cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas,
-            false, true, false));
+            false, true, false, lines(doc, tptr + "/spec", parent + "/replicas")));
       }
       if (!ctx.errors.isEmpty()) {
         diags.addAll(ctx.errors);
@@ -359,7 +416,8 @@ public final class ManifestReader {
             return false;
           }
           PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false));
+          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false,
+              lines(ctx.doc, spec, null)));
         }
         case DEPLOYMENT -> {
           Deployment o = convert(node, Deployment.class, ptr, ctx);
@@ -404,7 +462,8 @@ public final class ManifestReader {
           }
           PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
           PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false));
+          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false,
+              lines(ctx.doc, template, null)));
         }
         case JOB -> {
           Job o = convert(node, Job.class, ptr, ctx);
@@ -440,7 +499,8 @@ public final class ManifestReader {
           }
           autoscalers.put(key, new Autoscaler(id.namespace() + "/" + id.name(), id.namespace(),
               s.getScaleTargetRef().getKind(), s.getScaleTargetRef().getName(),
-              s.getMaxReplicas(), source));
+              s.getMaxReplicas(), source,
+              new SourceRef(ctx.doc.file(), ctx.doc.line(spec + "/maxReplicas"))));
         }
         case LIMIT_RANGE -> {
           LimitRange o = convert(node, LimitRange.class, ptr, ctx);
@@ -494,7 +554,7 @@ public final class ManifestReader {
       }
       PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), templatePtr, ctx);
       put(key, new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false,
-          true));
+          true, lines(ctx.doc, templatePtr, specPtr + "/replicas")));
     }
 
     void job(String key, WorkloadId id, SourceRef source, JobSpec s, String jobSpecPtr,
@@ -515,7 +575,8 @@ public final class ManifestReader {
       PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(),
           jobSpecPtr + "/template/spec", ctx);
       put(key, new Candidate(id, source, pod, ReplicaRules.job(parallelism, completions), false,
-          false, false));
+          false, false, lines(ctx.doc, jobSpecPtr + "/template/spec",
+              jobSpecPtr + "/parallelism")));
     }
 
     void put(String key, Candidate c) {
@@ -678,6 +739,18 @@ public final class ManifestReader {
       if (c.custom()) {
         flags.add(GUESS_FLAG);
       }
+      Optional<SourceRef> replicasAt = c.lines().replicas();
+      if (!hpas.isEmpty() && opts.replicaMode() == dev.numafit.demand.ReplicaMode.PEAK) {
+        Autoscaler top = hpas.get(0);
+        for (Autoscaler a : hpas) {
+          if (a.maxReplicas() > top.maxReplicas()) {
+            top = a;
+          }
+        }
+        replicasAt = Optional.of(top.maxReplicasAt());
+      }
+      sources.put(c.id(), new WorkloadSource(c.lines().template(), replicasAt,
+          c.lines().containers(), pod));
       return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
     }
   }
