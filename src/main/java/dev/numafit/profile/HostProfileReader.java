@@ -646,7 +646,7 @@ public final class HostProfileReader {
               "expected a list of distances such as [10, 21], got " + r.shown());
           ok = false;
           matrix.add(List.of());
-          lines.add(new int[0]);
+          lines.add(null);
           continue;
         }
         List<Integer> values = new ArrayList<>();
@@ -659,7 +659,8 @@ public final class HostProfileReader {
                   "expected a whole number from 10 to 255", v.line());
           if (d == null) {
             ok = false;
-            values.add(Slit.LOCAL);
+            rowLines[j] = -1;
+            values.add(i == j ? Slit.LOCAL : Slit.UNREACHABLE);
           } else {
             values.add(d);
           }
@@ -671,6 +672,10 @@ public final class HostProfileReader {
         return Optional.empty();
       }
       for (Slit.Problem p : Slit.validate(matrix, nodeCount)) {
+        if (p.row() >= 0 && (lines.get(p.row()) == null
+            || (p.column() >= 0 && lines.get(p.row())[p.column()] < 0))) {
+          continue; // already reported as not a list or not a number
+        }
         ok = false;
         if (p.row() < 0) {
           error(e.keyLine(), path, p.message());

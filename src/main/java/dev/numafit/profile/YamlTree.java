@@ -144,7 +144,7 @@ final class YamlTree {
         return new Scalar(line, t, "");
       }
       default -> {
-        return new Scalar(line, t, p.getText());
+        return new Scalar(line, t, p.getString());
       }
     }
   }

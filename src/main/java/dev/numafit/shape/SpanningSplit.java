@@ -5,7 +5,7 @@ import java.util.List;
 
 /**
  * How a hypervisor splits a VM wider than one NUMA node into virtual NUMA nodes of equal size, one
- * per physical node it lands on (common practice; the seed document's example: a 16-vCPU VM on
+ * per physical node it lands on (common practice; the usual worked example: a 16-vCPU VM on
  * 12-core nodes becomes two halves of 8).
  *
  * @param vcpus the VM's vCPUs

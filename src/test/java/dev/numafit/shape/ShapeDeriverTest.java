@@ -165,7 +165,7 @@ class ShapeDeriverTest {
 
   @Test
   void workersPerHost_16VcpusOn12CoreNodes_spanningWorkerInTwoHalves() {
-    // Common practice (the seed document's example): 16 vCPUs on 12-core nodes span two nodes,
+    // Common practice, the usual worked example: 16 vCPUs on 12-core nodes span two nodes,
     // split 8 + 8. Per host (no reserve): 24 vCPUs / 16 = 1 worker.
     HostProfile p = host(2, 1, 12, 0, 0, 0, Resources.EMPTY);
     HostFit fit =

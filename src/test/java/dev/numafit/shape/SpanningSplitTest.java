@@ -11,7 +11,7 @@ class SpanningSplitTest {
 
   @Test
   void of_16VcpusOn12CoreNodes_twoHalvesOf8() {
-    // The seed document's example (common practice): a 16-vCPU VM on 12-core nodes is split by
+    // Common practice, the usual worked example: a 16-vCPU VM on 12-core nodes is split by
     // the hypervisor into two virtual NUMA nodes of 8 vCPUs.
     SpanningSplit s = SpanningSplit.of(16, 64 * GI, 12, 96 * GI);
     assertEquals(List.of(8L, 8L), s.vcpusPerNode());

@@ -15,6 +15,7 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.Map;
 import java.util.Optional;
+import java.util.TreeMap;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
@@ -51,19 +52,22 @@ public final class KubeletConfigWriter {
     if (!a.systemReserved().isEmpty()) {
       root.set("systemReserved", quantities(a.systemReserved()));
     }
-    ObjectNode eviction = mapper.createObjectNode();
+    // Sorted by signal name so the file reads the same whatever the resource order.
+    TreeMap<String, String> signals = new TreeMap<>();
     for (String resource : a.eviction().names()) {
       Optional<String> signal = EvictionSignals.signalOf(resource);
       if (signal.isEmpty()) {
         continue;
       }
       BigDecimal pct = reserve.evictionHardPercent().get(resource);
-      eviction.put(
+      signals.put(
           signal.get(),
           pct != null
               ? pct.stripTrailingZeros().toPlainString() + "%"
               : quantity(resource, a.eviction().get(resource)));
     }
+    ObjectNode eviction = mapper.createObjectNode();
+    signals.forEach(eviction::put);
     if (!eviction.isEmpty()) {
       root.set("evictionHard", eviction);
     }
