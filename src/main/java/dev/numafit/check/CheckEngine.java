@@ -343,10 +343,14 @@ public final class CheckEngine {
       at = src == null ? top.source() : src.replicas().orElse(top.source());
       topId = Optional.of(top.id());
     }
-    String perHost = plan.workersPerHost().isPresent()
-        ? " (" + plan.workersNeeded() + " workers at " + plan.workersPerHost().getAsInt()
-            + " per host, failure headroom included)"
-        : "";
+    String perHost = "";
+    if (plan.workersPerHost().isPresent()) {
+      int per = plan.workersPerHost().getAsInt();
+      int forWorkers = plan.workersNeeded() == 0 ? 0 : (plan.workersNeeded() - 1) / per + 1;
+      int headroom = hosts - forWorkers;
+      perHost = " (" + plan.workersNeeded() + " workers at " + per + " per host"
+          + (headroom > 0 ? ", plus " + headroom + " for host failures" : "") + ")";
+    }
     return Optional.of(
         Finding.of(
             Rule.FLEET_CAPACITY,

@@ -30,7 +30,7 @@ import picocli.CommandLine.ParentCommand;
     footerHeading = "%nExamples:%n",
     footer = {
       "  numafit check -f manifests-examples/parcel-delivery/ \\",
-      "      --host-profile host-profiles/two-socket-one-node-each.yaml",
+      "      --host-profile host-profiles/two-socket-one-node-per-socket.yaml",
       "  numafit check -f rendered/ --worker cpu=16,memory=64Gi --baseline-git origin/main",
       "  numafit check -f rendered/ --host-profile hosts.yaml --fleet-hosts 12 \\",
       "      --host-failures 1 --baseline old-rendered/ -o sarif --out numafit.sarif",

@@ -12,7 +12,7 @@ import org.junit.jupiter.api.io.TempDir;
 /** {@code numafit check} through {@link Main#run}: exit codes, standard output and error. */
 class CheckCommandTest {
   private static final String PARCEL = "manifests-examples/parcel-delivery/";
-  private static final String PROFILE = "host-profiles/two-socket-one-node-each.yaml";
+  private static final String PROFILE = "host-profiles/two-socket-one-node-per-socket.yaml";
 
   @Test
   void check_exampleWithDeliberatelyOversizePod_exitsOneAndNamesIt() {
