@@ -2,6 +2,7 @@ package dev.numafit.manifest;
 
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
+import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -18,6 +19,7 @@ import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
+import tools.jackson.dataformat.yaml.YAMLParser;
 
 /**
  * Splits one file's text into documents (multi-document YAML, or JSON values back to back) and
@@ -32,6 +34,9 @@ final class DocumentReader {
       YAMLMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
   private final JsonMapper json =
       JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+
+  /** A key given twice in one mapping, where the second one is. */
+  private record DuplicateKey(int line, String name) {}
 
   /** What reading one file produced besides its documents. */
   static final class Outcome {
@@ -50,7 +55,7 @@ final class DocumentReader {
       Consumer<LocatedDocument> sink,
       List<Diagnostic> diagnostics) {
     Outcome outcome = new Outcome();
-    String[] lines = text.split("\n", -1);
+    String[] lines = null; // split only when an error needs the next document separator
     int offset = 0; // lines skipped before the current parser's input
     String rest = text;
     while (rest != null) {
@@ -64,7 +69,14 @@ final class DocumentReader {
             continue;
           }
           Map<String, Integer> positions = new HashMap<>();
-          JsonNode root = build(p, t, "", positions, offset);
+          List<DuplicateKey> duplicates = new ArrayList<>();
+          JsonNode root = build(p, t, "", positions, offset, new HashMap<>(), duplicates);
+          for (DuplicateKey d : duplicates) {
+            diagnostics.add(
+                Diagnostic.warning(
+                    new SourceRef(file, d.line()),
+                    "duplicate key \"" + d.name() + "\" in one mapping; the later value is used"));
+          }
           sink.accept(new LocatedDocument(file, root, positions, start));
         }
       } catch (JacksonException e) {
@@ -72,8 +84,11 @@ final class DocumentReader {
         diagnostics.add(
             Diagnostic.error(
                 new SourceRef(file, Math.max(errorLine, 0)),
-                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, asJson)));
+                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, offset)));
         if (!asJson) {
+          if (lines == null) {
+            lines = text.split("\n", -1);
+          }
           // Resume at the next document separator after the error, if any.
           for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
             if (lines[i].startsWith("---")) {
@@ -94,8 +109,37 @@ final class DocumentReader {
   }
 
   private JsonNode build(
-      JsonParser p, JsonToken t, String pointer, Map<String, Integer> positions, int offset) {
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors,
+      List<DuplicateKey> duplicates) {
     positions.put(pointer, offset + line(p.currentTokenLocation()));
+    if (p instanceof YAMLParser y && t == JsonToken.VALUE_STRING && y.isCurrentAlias()) {
+      // An alias (*name) repeats the node anchored as &name earlier in the document.
+      JsonNode anchored = anchors.get(p.getString());
+      if (anchored != null) {
+        return anchored.deepCopy();
+      }
+    }
+    Object anchor = p.getObjectId();
+    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors, duplicates);
+    if (anchor != null) {
+      anchors.put(anchor.toString(), node);
+    }
+    return node;
+  }
+
+  private JsonNode buildValue(
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors,
+      List<DuplicateKey> duplicates) {
     switch (t) {
       case START_OBJECT:
         {
@@ -106,8 +150,12 @@ final class DocumentReader {
             String child = pointer + "/" + LocatedDocument.segment(name);
             int keyLine = offset + line(p.currentTokenLocation());
             JsonToken v = p.nextToken();
-            o.set(name, build(p, v, child, positions, offset));
-            if (positions.get(child) != keyLine) {
+            if (o.has(name)) {
+              duplicates.add(new DuplicateKey(keyLine, name));
+            }
+            o.set(name, build(p, v, child, positions, offset, anchors, duplicates));
+            Integer valueLine = positions.get(child);
+            if (valueLine != null && valueLine != keyLine) {
               // A block mapping or list starts on the line after its key; keep the key's line
               // so a message can point at "resources:" itself.
               positions.put(child + LocatedDocument.KEY_SUFFIX, keyLine);
@@ -121,7 +169,7 @@ final class DocumentReader {
           JsonToken n;
           int i = 0;
           while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
-            a.add(build(p, n, pointer + "/" + i, positions, offset));
+            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors, duplicates));
             i++;
           }
           return a;
@@ -164,7 +212,7 @@ final class DocumentReader {
     return line(e.getLocation());
   }
 
-  private static String problem(JacksonException e, boolean asJson) {
+  private static String problem(JacksonException e, int lineOffset) {
     for (Throwable c = e; c != null; c = c.getCause()) {
       if (c instanceof MarkedYamlEngineException m) {
         String problem = m.getProblem() == null ? "" : m.getProblem();
@@ -173,9 +221,14 @@ final class DocumentReader {
           return problem + " (YAML indents with spaces only)";
         }
         String context = m.getContext();
-        return context == null || context.isBlank()
-            ? problem
-            : problem + " (" + context.trim() + ")";
+        if (context == null || context.isBlank()) {
+          return problem;
+        }
+        String started =
+            m.getContextMark()
+                .map(mark -> " started on line " + (mark.getLine() + 1 + lineOffset))
+                .orElse("");
+        return problem + " (" + context.trim() + started + ")";
       }
     }
     String msg = e.getOriginalMessage();
