@@ -89,4 +89,28 @@ class CheckCommandTest {
     assertEquals(2, r.code());
     assertTrue(r.err().contains("--skip-invalid"), r.err());
   }
+
+  @Test
+  void check_configFile_suppliesOptionsAndFlagsOverride(@TempDir Path dir) throws IOException {
+    // numafit.yaml in the working folder works for check as for plan (docs/config-file.md).
+    Files.writeString(dir.resolve("numafit.yaml"),
+        "worker: cpu=16,memory=64Gi\nfail-on: [none]\n");
+    String parcel = Path.of(PARCEL).toAbsolutePath().toString();
+    CliRun fromFile = CliRun.in(dir, "", "check", "-f", parcel);
+    assertEquals(0, fromFile.code(), fromFile.err());
+    assertTrue(fromFile.out().contains("given worker: 16 vCPUs, 64GiB"), fromFile.out());
+    // The flag wins over the file: the default rules fail on the 40-CPU route-optimizer.
+    CliRun flag = CliRun.in(dir, "", "check", "-f", parcel, "--fail-on", "pod-exceeds-worker");
+    assertEquals(1, flag.code(), flag.err());
+  }
+
+  @Test
+  void check_outFile_writesReportNotStdout(@TempDir Path dir) throws IOException {
+    Path out = dir.resolve("report.json");
+    CliRun r = CliRun.of("check", "-f", PARCEL, "--host-profile", PROFILE, "-o", "json",
+        "--out", out.toString());
+    assertEquals(1, r.code(), r.err());
+    assertEquals("", r.out());
+    assertTrue(Files.readString(out).contains("\"result\" : \"fail\""));
+  }
 }
