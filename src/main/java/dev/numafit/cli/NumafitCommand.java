@@ -19,6 +19,7 @@ import picocli.CommandLine.Spec;
     subcommands = {
       DemandCommand.class,
       PlanCommand.class,
+      CheckCommand.class,
       CompletionCommand.class,
       ProfileCommand.class,
       CommandLine.HelpCommand.class
