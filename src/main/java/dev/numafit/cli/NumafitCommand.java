@@ -19,6 +19,7 @@ import picocli.CommandLine.Spec;
     subcommands = {
       DemandCommand.class,
       PlanCommand.class,
+      SnapshotCommand.class,
       CompletionCommand.class,
       CommandLine.HelpCommand.class
     },
