@@ -32,7 +32,8 @@ final class Errors
     if (t instanceof ParameterException
         || t instanceof UsageException
         || t instanceof InputException
-        || t instanceof OutputException) {
+        || t instanceof OutputException
+        || t instanceof InvalidInput) {
       return ExitCode.USAGE_OR_INPUT.code();
     }
     return ExitCode.INTERNAL.code();
@@ -55,6 +56,14 @@ final class Errors
       hint(cmd);
     } else if (ex instanceof InputException ie) {
       ie.diagnostics().forEach(console::report);
+    } else if (ex instanceof InvalidInput ii) {
+      ii.diagnostics().forEach(console::report);
+      long n = ii.diagnostics().stream()
+          .filter(d -> d.severity() == dev.numafit.diag.Severity.ERROR).count();
+      console.err().println(n + (n == 1 ? " error" : " errors") + " in the input"
+          + (ii.skippable()
+              ? "; fix them, or use --skip-invalid to leave the invalid documents out."
+              : "."));
     } else if (ex instanceof OutputException oe) {
       console.error(oe.getMessage());
     } else {

@@ -21,6 +21,7 @@ import picocli.CommandLine.Spec;
       PlanCommand.class,
       SnapshotCommand.class,
       CompletionCommand.class,
+      ProfileCommand.class,
       CommandLine.HelpCommand.class
     },
     footerHeading = "%nExamples:%n",

@@ -1,17 +1,268 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.Demand;
+import dev.numafit.demand.ReplicaMode;
+import dev.numafit.diag.Diagnostic;
+import dev.numafit.diag.InputException;
+import dev.numafit.diag.Severity;
+import dev.numafit.fit.SpanningRoom;
+import dev.numafit.host.HostProfile;
+import dev.numafit.manifest.ManifestReader;
+import dev.numafit.manifest.ReadOptions;
+import dev.numafit.plan.Plan;
+import dev.numafit.plan.PlanComparison;
+import dev.numafit.plan.PlanInput;
+import dev.numafit.plan.Planner;
+import dev.numafit.profile.HostProfileReader;
+import dev.numafit.profile.ProfileLoad;
+import dev.numafit.report.DemandJsonWriter;
+import dev.numafit.report.DemandReport;
+import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanJsonWriter;
+import dev.numafit.report.PlanReport;
+import dev.numafit.report.PlanTextWriter;
+import dev.numafit.report.ReportFormat;
+import dev.numafit.report.ReportWriter;
+import dev.numafit.report.kubelet.KubeletConfigWriter;
+import dev.numafit.resource.Resources;
+import dev.numafit.shape.Allocatable;
+import dev.numafit.shape.AllocatableResult;
+import dev.numafit.shape.HostFit;
+import dev.numafit.shape.ShapeDeriver;
+import dev.numafit.shape.ShapeKind;
+import dev.numafit.shape.ShapeOptions;
+import dev.numafit.shape.ShapeSet;
+import dev.numafit.shape.SpanningSplit;
+import dev.numafit.shape.WorkerShape;
+import java.io.IOException;
+import java.math.BigDecimal;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.OptionalInt;
+import java.util.TreeMap;
+
 /**
- * Runs a checked command: reads the inputs, calls the core, renders the report and writes it.
- * The only class of the CLI that knows the order of the steps.
+ * Runs a checked command: reads the inputs, calls the core, renders the report and writes it. The
+ * only class of the CLI that knows the order of the steps.
  */
 final class Pipeline {
   private Pipeline() {}
 
-  static int demand(DemandOptions options, Console console) {
-    throw new UnsupportedOperationException("demand is not wired yet");
+  static int demand(DemandOptions o, Console console) {
+    checkPathsExist(o.files());
+    Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
+    List<Diagnostic> shown = checkInput(demand.diagnostics(), List.of(), o.skipInvalid());
+    DemandReport report = new DemandReport(demand, shown);
+    ReportWriter<DemandReport> writer =
+        o.format() == ReportFormat.JSON ? new DemandJsonWriter() : new DemandTextWriter();
+    if (o.format() == ReportFormat.TEXT) {
+      report.warnings().forEach(console::report);
+    }
+    ReportOutput.write(writer.render(report), o.out(), console);
+    return ExitCode.OK.code();
   }
 
-  static int plan(PlanOptions options, Console console) {
-    throw new UnsupportedOperationException("plan is not wired yet");
+  static int plan(PlanOptions o, Console console) throws InputException {
+    checkPathsExist(o.files());
+    Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
+    List<Diagnostic> profileErrors = new ArrayList<>();
+    Map<Path, ProfileLoad> profiles = readProfiles(o.hostProfiles(), profileErrors);
+    List<Diagnostic> warnings =
+        new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
+    ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
+    Planner planner = new Planner();
+    List<Plan> plans = new ArrayList<>();
+    List<WorkerShape> shapes = new ArrayList<>();
+    Map<String, BigDecimal> costs = new TreeMap<>();
+    List<String> problems = new ArrayList<>();
+    for (ProfileLoad load : profiles.values()) {
+      warnings.addAll(load.warnings());
+      HostProfile host = load.profile();
+      host.relativeCost().ifPresent(c -> costs.put(host.name(), c));
+      ShapeSet set = deriver.derive(host);
+      List<String> notes = new ArrayList<>();
+      List<Diagnostic> planWarnings = new ArrayList<>(set.warnings());
+      WorkerShape shape;
+      HostFit fit;
+      if (o.worker().isPresent()) {
+        shape = explicitShape(o.worker().get(), 1);
+        fit = deriver.workersPerHost(host, shape);
+        if (fit.spanning()) {
+          shape = explicitShape(o.worker().get(), fit.split().map(SpanningSplit::nodes).orElse(1));
+        }
+        notes.addAll(fit.notes());
+        notes.add(ShapeDeriver.topologyAdvice(shape));
+      } else {
+        shape = set.oneNode();
+        if (shape.vcpus() <= 0 || shape.memoryBytes() <= 0) {
+          problems.add("host profile " + host.name() + " (" + host.source().file()
+              + ") leaves no room for a worker after the hypervisor's reserve");
+          continue;
+        }
+        fit = deriver.workersPerHost(host, shape);
+        notes.addAll(set.notes());
+      }
+      if (fit.workersPerHost() < 1) {
+        problems.add("--worker " + describe(shape) + " does not fit on host profile "
+            + host.name() + " (larger than the whole host)");
+        continue;
+      }
+      AllocatableResult alloc = Allocatable.computeDetailed(shape, o.reserve());
+      alloc.warnings().forEach(w -> planWarnings.add(Diagnostic.warning(host.source(), w)));
+      List<SpanningRoom> spanning = new ArrayList<>();
+      for (WorkerShape s : set.spanning()) {
+        spanning.add(new SpanningRoom(s.kind().label(), Allocatable.compute(s, o.reserve())));
+      }
+      PlanInput in =
+          new PlanInput(
+              Optional.of(host.name()),
+              shape,
+              alloc.allocatable(),
+              OptionalInt.of(fit.workersPerHost()),
+              spanning,
+              o.perWorker(),
+              o.hostFailures(),
+              o.maxUtilizationPct(),
+              o.growth(),
+              o.placement(),
+              notes,
+              planWarnings);
+      plans.add(planner.plan(demand, in));
+      shapes.add(shape);
+    }
+    if (o.hostProfiles().isEmpty()) {
+      WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
+      AllocatableResult alloc = Allocatable.computeDetailed(shape, o.reserve());
+      List<Diagnostic> planWarnings = new ArrayList<>();
+      alloc.warnings().forEach(w -> planWarnings.add(Diagnostic.warning(null, w)));
+      PlanInput in =
+          new PlanInput(
+              Optional.empty(),
+              shape,
+              alloc.allocatable(),
+              OptionalInt.empty(),
+              List.of(),
+              o.perWorker(),
+              o.hostFailures(),
+              o.maxUtilizationPct(),
+              o.growth(),
+              o.placement(),
+              List.of(ShapeDeriver.topologyAdvice(shape)),
+              planWarnings);
+      plans.add(planner.plan(demand, in));
+      shapes.add(shape);
+    }
+    if (!problems.isEmpty()) {
+      throw new UsageException(problems);
+    }
+    for (Plan p : plans) {
+      warnings.addAll(p.warnings());
+    }
+    Optional<PlanComparison> comparison =
+        plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
+    if (o.kubeletConfigDir().isPresent()) {
+      writeKubeletConfigs(o, plans, shapes);
+    }
+    ReportWriter<PlanReport> writer =
+        o.format() == ReportFormat.JSON ? new PlanJsonWriter() : new PlanTextWriter();
+    if (o.format() == ReportFormat.TEXT) {
+      report.warnings().forEach(console::report);
+    }
+    ReportOutput.write(writer.render(report), o.out(), console);
+    return ExitCode.OK.code();
+  }
+
+  private static Demand readDemand(
+      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
+    ReplicaMode mode = replicas == ReplicasOption.DECLARED ? ReplicaMode.DECLARED : ReplicaMode.PEAK;
+    return new ManifestReader().read(files, console.in(), new ReadOptions(mode, includeCustom));
+  }
+
+  /**
+   * Stops with every diagnostic (exit 2) when a host profile is invalid, or when the manifests
+   * have errors and --skip-invalid is not given; otherwise returns what the report shows: warnings
+   * and notes, plus the skipped errors.
+   */
+  private static List<Diagnostic> checkInput(
+      List<Diagnostic> diagnostics, List<Diagnostic> profileErrors, boolean skipInvalid) {
+    boolean manifestErrors = diagnostics.stream().anyMatch(d -> d.severity() == Severity.ERROR);
+    if (!profileErrors.isEmpty() || (manifestErrors && !skipInvalid)) {
+      List<Diagnostic> all = new ArrayList<>(diagnostics);
+      all.addAll(profileErrors);
+      all.sort(null);
+      throw new InvalidInput(all, manifestErrors && !skipInvalid);
+    }
+    return diagnostics;
+  }
+
+  /**
+   * A path that does not exist is a usage error whatever --skip-invalid says: the user meant
+   * another path.
+   */
+  private static void checkPathsExist(List<String> files) {
+    List<String> problems = new ArrayList<>();
+    for (String f : files) {
+      if (!f.equals("-") && !Files.exists(Path.of(f))) {
+        problems.add("-f " + f + ": no such file or folder");
+      }
+    }
+    if (!problems.isEmpty()) {
+      throw new UsageException(problems);
+    }
+  }
+
+  /** Reads every profile, collecting the errors of all of them. */
+  private static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
+    Map<Path, ProfileLoad> loads = new LinkedHashMap<>();
+    HostProfileReader reader = new HostProfileReader();
+    for (Path p : paths) {
+      try {
+        loads.put(p, reader.read(p));
+      } catch (InputException ex) {
+        errors.addAll(ex.diagnostics());
+      }
+    }
+    return loads;
+  }
+
+  /** The --worker capacity as a shape: cpu whole vCPUs, memory bytes, the rest as extras. */
+  private static WorkerShape explicitShape(Resources worker, int nodesSpanned) {
+    Resources extras = worker.without(Resources.CPU).without(Resources.MEMORY);
+    return new WorkerShape(
+        ShapeKind.EXPLICIT,
+        1,
+        nodesSpanned,
+        worker.get(Resources.CPU) / 1000,
+        worker.get(Resources.MEMORY),
+        extras);
+  }
+
+  private static String describe(WorkerShape s) {
+    return "cpu=" + s.vcpus() + ",memory=" + s.memoryBytes();
+  }
+
+  /**
+   * One KubeletConfiguration per plan, named after its host profile ({@code worker} for a bare
+   * --worker plan), written through a temporary file like the report.
+   */
+  private static void writeKubeletConfigs(PlanOptions o, List<Plan> plans, List<WorkerShape> shapes) {
+    Path dir = o.kubeletConfigDir().orElseThrow();
+    try {
+      Files.createDirectories(dir);
+    } catch (IOException ex) {
+      throw new OutputException("cannot create folder " + dir + ": " + ex.getMessage(), ex);
+    }
+    KubeletConfigWriter writer = new KubeletConfigWriter();
+    for (int i = 0; i < plans.size(); i++) {
+      String name = plans.get(i).hostProfile().orElse("worker");
+      String file = name.replaceAll("[^A-Za-z0-9._-]", "_") + ".kubelet-config.yaml";
+      ReportOutput.writeFile(dir.resolve(file), writer.render(shapes.get(i), o.reserve()));
+    }
   }
 }

@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import java.util.SortedMap;
 
 /**
  * The options of {@code numafit plan} after every cross-option rule was checked (see {@link
@@ -114,11 +115,16 @@ public record PlanOptions(
             ? Resources.EMPTY
             : parse("--system-reserved", c.systemReserved, problems, false)
                 .orElse(Resources.EMPTY);
-    Resources eviction =
-        Resources.of(Resources.MEMORY, KubeletReserve.DEFAULT_EVICTION_MEMORY);
+    // The kubelet's defaults (memory.available 100Mi, nodefs.available 10%) hold until
+    // --eviction-hard is given; then, as in the kubelet, only the thresholds given apply (K12).
+    KubeletReserve defaults = KubeletReserve.defaults();
+    Resources eviction = defaults.evictionHard();
+    SortedMap<String, BigDecimal> evictionPercent = defaults.evictionHardPercent();
     if (c.evictionHard != null) {
       try {
-        eviction = ResourceArgs.parseEviction(c.evictionHard);
+        ResourceArgs.Eviction e = ResourceArgs.parseEviction(c.evictionHard);
+        eviction = e.amounts();
+        evictionPercent = e.percent();
       } catch (IllegalArgumentException ex) {
         problems.add("--eviction-hard " + ex.getMessage());
       }
@@ -134,7 +140,7 @@ public record PlanOptions(
     KubeletReserve reserve =
         noReserve
             ? KubeletReserve.none(maxPods)
-            : new KubeletReserve(kube, system, eviction, maxPods);
+            : new KubeletReserve(kube, system, eviction, maxPods, evictionPercent);
     Resources perWorker =
         c.perWorker == null
             ? Resources.EMPTY

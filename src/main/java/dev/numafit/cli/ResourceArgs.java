@@ -5,6 +5,7 @@ import io.fabric8.kubernetes.api.model.Quantity;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.Map;
+import java.util.SortedMap;
 import java.util.TreeMap;
 import java.util.regex.Pattern;
 
@@ -45,12 +46,22 @@ final class ResourceArgs {
   }
 
   /**
-   * A kubelet eviction threshold list, {@code memory.available=500Mi} (the kubelet's own {@code
-   * memory.available<500Mi} is accepted too), as amounts: memory.available becomes {@code memory},
-   * nodefs.available becomes {@code ephemeral-storage}.
+   * Hard eviction thresholds: amounts by resource, and percentages of capacity by resource.
+   *
+   * @param amounts memory.available as {@code memory}, nodefs.available as {@code
+   *     ephemeral-storage}, in bytes
+   * @param percent the same resources given as a percentage of capacity (0..100)
    */
-  static Resources parseEviction(String list) {
+  record Eviction(Resources amounts, SortedMap<String, BigDecimal> percent) {}
+
+  /**
+   * A kubelet eviction threshold list, {@code memory.available=500Mi,nodefs.available=10%} (the
+   * kubelet's own {@code memory.available<500Mi} is accepted too): memory.available becomes {@code
+   * memory}, nodefs.available becomes {@code ephemeral-storage}.
+   */
+  static Eviction parseEviction(String list) {
     Map<String, Long> out = new TreeMap<>();
+    SortedMap<String, BigDecimal> pct = new TreeMap<>();
     for (Map.Entry<String, String> e : split(list.replace('<', '='), "=").entrySet()) {
       String resource = EVICTION_SIGNALS.get(e.getKey());
       if (resource == null) {
@@ -58,14 +69,24 @@ final class ResourceArgs {
             "unknown eviction signal \"" + e.getKey()
                 + "\" (expected memory.available or nodefs.available)");
       }
-      if (e.getValue().endsWith("%")) {
-        throw new IllegalArgumentException(
-            e.getKey() + "=" + e.getValue()
-                + ": give the threshold as an amount such as 500Mi, not a percentage");
+      String v = e.getValue();
+      if (v.endsWith("%")) {
+        BigDecimal p;
+        try {
+          p = new BigDecimal(v.substring(0, v.length() - 1));
+        } catch (NumberFormatException ex) {
+          p = null;
+        }
+        if (p == null || p.signum() < 0 || p.compareTo(BigDecimal.valueOf(100)) > 0) {
+          throw new IllegalArgumentException(
+              e.getKey() + "=" + v + ": expected a percentage from 0% to 100%");
+        }
+        pct.put(resource, p);
+      } else {
+        out.put(resource, amount(resource, v));
       }
-      out.put(resource, amount(resource, e.getValue()));
     }
-    return Resources.of(out);
+    return new Eviction(Resources.of(out), pct);
   }
 
   private static Map<String, String> split(String list, String sep) {

@@ -10,17 +10,17 @@ import java.util.function.UnaryOperator;
 
 /**
  * The changes the API server makes to a pod before anything schedules it, as pure functions on
- * {@link PodModel}. Apply them in this order, which is the API server's: {@link
- * #limitsAsRequests} (defaulting on decode), {@link #applyLimitDefaults} (LimitRange admission),
- * {@link #applyOverhead} (RuntimeClass admission).
+ * {@link PodModel}. Apply them in this order, which is the API server's: {@link #limitsAsRequests}
+ * (defaulting on decode), {@link #applyLimitDefaults} (LimitRange admission), {@link
+ * #applyOverhead} (RuntimeClass admission).
  */
 public final class Admission {
   private Admission() {}
 
   /**
    * A container that sets a limit but no request for a resource requests its limit (Kubernetes
-   * "Resource Management for Pods and Containers", FACTS A2). Pod-level {@code spec.resources}:
-   * a pod limit without a pod request becomes the pod request only when no container requests that
+   * "Resource Management for Pods and Containers", FACTS A2). Pod-level {@code spec.resources}: a
+   * pod limit without a pod request becomes the pod request only when no container requests that
    * resource (KEP-2837, FACTS A1); otherwise the containers' aggregate stands.
    */
   public static PodModel limitsAsRequests(PodModel pod) {
@@ -34,7 +34,8 @@ public final class Admission {
             });
     TreeMap<String, BigDecimal> podRequests = new TreeMap<>(withContainers.podRequests());
     for (Map.Entry<String, BigDecimal> e : withContainers.podLimits().entrySet()) {
-      if (!podRequests.containsKey(e.getKey()) && !anyContainerRequests(withContainers, e.getKey())) {
+      if (!podRequests.containsKey(e.getKey())
+          && !anyContainerRequests(withContainers, e.getKey())) {
         podRequests.put(e.getKey(), e.getValue());
       }
     }

@@ -5,8 +5,8 @@ import java.math.RoundingMode;
 
 /**
  * Prints exact resource amounts in Kubernetes' own notation for messages: CPU in cores or
- * millicores ({@code 2}, {@code 1500m}), byte resources with the largest binary suffix that is exact
- * ({@code 80Mi}), everything else as a plain number.
+ * millicores ({@code 2}, {@code 1500m}), byte resources with the largest binary suffix that is
+ * exact ({@code 80Mi}), everything else as a plain number.
  */
 public final class Amounts {
   private static final String[] BINARY = {"Ki", "Mi", "Gi", "Ti", "Pi", "Ei"};

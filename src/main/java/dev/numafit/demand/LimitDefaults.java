@@ -24,10 +24,10 @@ public record LimitDefaults(
   }
 
   /**
-   * The defaults of one LimitRange item as the API server stores them. Kubernetes'
-   * {@code SetDefaults_LimitRangeItem} (pkg/apis/core/v1/defaults.go, FACTS A2 K9b) fills a missing
-   * {@code default} from {@code max}, then a missing {@code defaultRequest} from {@code default},
-   * else from {@code min}; each resource on its own.
+   * The defaults of one LimitRange item as the API server stores them. Kubernetes' {@code
+   * SetDefaults_LimitRangeItem} (pkg/apis/core/v1/defaults.go, FACTS A2 K9b) fills a missing {@code
+   * default} from {@code max}, then a missing {@code defaultRequest} from {@code default}, else
+   * from {@code min}; each resource on its own.
    */
   public static LimitDefaults fromItem(
       Map<String, BigDecimal> max,

@@ -15,8 +15,8 @@ import java.util.TreeSet;
 import java.util.function.Function;
 
 /**
- * Kubernetes' own arithmetic for what a pod asks of a node, on an admitted {@link PodModel} (run the
- * {@link Admission} steps first).
+ * Kubernetes' own arithmetic for what a pod asks of a node, on an admitted {@link PodModel} (run
+ * the {@link Admission} steps first).
  *
  * <p>Sources (FACTS A1–A3, A5): KEP-753 "Resources calculation for scheduling and pod admission"
  * and {@code component-helpers/resource/helpers.go} for the sidecar-aware aggregate; "Pod Overhead"
@@ -27,8 +27,10 @@ import java.util.function.Function;
 public final class PodArithmetic {
   /** Flag when a container requests no CPU (it is then counted as zero). */
   public static final String NO_CPU_REQUEST = "no request for cpu";
+
   /** Flag when a container requests no memory (it is then counted as zero). */
   public static final String NO_MEMORY_REQUEST = "no request for memory";
+
   /** Flag when a CPU amount had a precision finer than 1m. */
   public static final String CPU_FINER_THAN_1M = "cpu request finer than 1m rounded up";
 
@@ -39,7 +41,9 @@ public final class PodArithmetic {
 
   /** Whether {@code spec.resources} of a pod may set this resource (cpu, memory, hugepages-*). */
   public static boolean podLevelResource(String name) {
-    return name.equals(Resources.CPU) || name.equals(Resources.MEMORY) || Resources.isHugepages(name);
+    return name.equals(Resources.CPU)
+        || name.equals(Resources.MEMORY)
+        || Resources.isHugepages(name);
   }
 
   /**
@@ -84,15 +88,15 @@ public final class PodArithmetic {
 
     QosClass qos = qos(p);
     long exclusive = qos == QosClass.GUARANTEED ? exclusiveCpus(p) : 0;
-    return new EffectivePod(toUnits(requests, flags), toUnits(limits, flags), qos, exclusive,
-        new ArrayList<>(flags));
+    return new EffectivePod(
+        toUnits(requests, flags), toUnits(limits, flags), qos, exclusive, new ArrayList<>(flags));
   }
 
   /**
-   * Problems that make the API server reject the pod, one sentence each (empty when valid):
-   * a request above its limit; a hugepages request that differs from its limit (hugepages cannot be
-   * overcommitted, "Manage HugePages"); pod-level requests or limits below the containers' aggregate
-   * or a container limit above the pod limit (KEP-2837).
+   * Problems that make the API server reject the pod, one sentence each (empty when valid): a
+   * request above its limit; a hugepages request that differs from its limit (hugepages cannot be
+   * overcommitted, "Manage HugePages"); pod-level requests or limits below the containers'
+   * aggregate or a container limit above the pod limit (KEP-2837).
    */
   public static List<String> validate(PodModel pod) {
     List<String> problems = new ArrayList<>();
@@ -120,7 +124,8 @@ public final class PodArithmetic {
         }
       }
     }
-    SortedMap<String, BigDecimal> containerRequests = aggregate(pod, ContainerSpec::requests, false);
+    SortedMap<String, BigDecimal> containerRequests =
+        aggregate(pod, ContainerSpec::requests, false);
     for (Map.Entry<String, BigDecimal> e : pod.podLimits().entrySet()) {
       String r = e.getKey();
       BigDecimal agg = containerRequests.get(r);
@@ -161,8 +166,8 @@ public final class PodArithmetic {
   }
 
   /**
-   * Pages of one hugepages resource: {@code hugepages-2Mi} of 80Mi is 40 pages. Empty when the
-   * name carries no size or the amount is not a whole number of pages.
+   * Pages of one hugepages resource: {@code hugepages-2Mi} of 80Mi is 40 pages. Empty when the name
+   * carries no size or the amount is not a whole number of pages.
    */
   public static OptionalLong hugepages(String resource, long bytes) {
     OptionalLong size = hugepageSize(resource);
@@ -182,7 +187,9 @@ public final class PodArithmetic {
     for (int i = 0; i < suffixes.length; i++) {
       if (size.endsWith(suffixes[i])) {
         String digits = size.substring(0, size.length() - 2);
-        if (!digits.isEmpty() && digits.chars().allMatch(Character::isDigit) && digits.length() < 10) {
+        if (!digits.isEmpty()
+            && digits.chars().allMatch(Character::isDigit)
+            && digits.length() < 10) {
           return OptionalLong.of(Long.parseLong(digits) << (10 * (i + 1)));
         }
       }
@@ -198,7 +205,8 @@ public final class PodArithmetic {
    * @param allOrNothing for limits: a resource some container leaves unlimited is left out
    */
   static SortedMap<String, BigDecimal> aggregate(
-      PodModel pod, Function<ContainerSpec, SortedMap<String, BigDecimal>> amounts,
+      PodModel pod,
+      Function<ContainerSpec, SortedMap<String, BigDecimal>> amounts,
       boolean allOrNothing) {
     TreeSet<String> names = new TreeSet<>();
     pod.initContainers().forEach(c -> names.addAll(amounts.apply(c).keySet()));
@@ -259,9 +267,9 @@ public final class PodArithmetic {
 
   /**
    * QoS from CPU and memory only ("Pod Quality of Service Classes"). Guaranteed: every container
-   * sets CPU and memory limits and its requests equal them; BestEffort: no container sets any CPU or
-   * memory request or limit; Burstable otherwise. When pod-level resources set CPU or memory, they
-   * decide (KEP-2837).
+   * sets CPU and memory limits and its requests equal them; BestEffort: no container sets any CPU
+   * or memory request or limit; Burstable otherwise. When pod-level resources set CPU or memory,
+   * they decide (KEP-2837).
    */
   static QosClass qos(PodModel pod) {
     List<String> compute = List.of(Resources.CPU, Resources.MEMORY);
@@ -300,9 +308,9 @@ public final class PodArithmetic {
   }
 
   /**
-   * Whole CPUs the static CPU manager pins for a Guaranteed pod: the sum of the integer CPU requests
-   * of its app containers and sidecars; a fractional request (1.5, 300m) runs in the shared pool
-   * ("Resource managers", FACTS A5).
+   * Whole CPUs the static CPU manager pins for a Guaranteed pod: the sum of the integer CPU
+   * requests of its app containers and sidecars; a fractional request (1.5, 300m) runs in the
+   * shared pool ("Resource managers", FACTS A5).
    */
   private static long exclusiveCpus(PodModel pod) {
     long sum = 0;
@@ -315,7 +323,10 @@ public final class PodArithmetic {
     for (ContainerSpec c : running) {
       BigDecimal cpu = c.requests().get(Resources.CPU);
       BigDecimal lim = c.limits().get(Resources.CPU);
-      if (cpu != null && cpu.signum() > 0 && lim != null && cpu.compareTo(lim) == 0
+      if (cpu != null
+          && cpu.signum() > 0
+          && lim != null
+          && cpu.compareTo(lim) == 0
           && cpu.stripTrailingZeros().scale() <= 0) {
         sum += cpu.longValueExact();
       }
@@ -332,13 +343,20 @@ public final class PodArithmetic {
     pod.initContainers().forEach(c -> init.add(round(c, flags)));
     List<ContainerSpec> app = new ArrayList<>();
     pod.containers().forEach(c -> app.add(round(c, flags)));
-    return new PodModel(init, app, roundMap(pod.overhead(), flags, "overhead"),
-        roundMap(pod.podRequests(), flags, "request"), roundMap(pod.podLimits(), flags, "limit"),
+    return new PodModel(
+        init,
+        app,
+        roundMap(pod.overhead(), flags, "overhead"),
+        roundMap(pod.podRequests(), flags, "request"),
+        roundMap(pod.podLimits(), flags, "limit"),
         pod.runtimeClassName());
   }
 
   private static ContainerSpec round(ContainerSpec c, Set<String> flags) {
-    return new ContainerSpec(c.name(), c.role(), roundMap(c.requests(), flags, "request"),
+    return new ContainerSpec(
+        c.name(),
+        c.role(),
+        roundMap(c.requests(), flags, "request"),
         roundMap(c.limits(), flags, "limit"));
   }
 
@@ -349,8 +367,10 @@ public final class PodArithmetic {
         (k, v) -> {
           BigDecimal r = v.setScale(3, RoundingMode.CEILING);
           if (k.equals(Resources.CPU) && r.compareTo(v) != 0) {
-            flags.add("request".equals(what) ? CPU_FINER_THAN_1M
-                : "cpu " + what + " finer than 1m rounded up");
+            flags.add(
+                "request".equals(what)
+                    ? CPU_FINER_THAN_1M
+                    : "cpu " + what + " finer than 1m rounded up");
           }
           out.put(k, r);
         });

@@ -25,8 +25,8 @@ public final class ReplicaRules {
 
   /**
    * A Job runs {@code parallelism} pods at once (default 1; 0 pauses it), never more than its
-   * {@code completions} when those are set (a work-queue Job leaves them unset). A CronJob counts one
-   * Job of its {@code jobTemplate}.
+   * {@code completions} when those are set (a work-queue Job leaves them unset). A CronJob counts
+   * one Job of its {@code jobTemplate}.
    */
   public static Replicas job(Integer parallelism, Integer completions) {
     int p = parallelism == null ? 1 : parallelism;
@@ -65,8 +65,6 @@ public final class ReplicaRules {
       return declared;
     }
     return new Replicas(
-        declared.declared(),
-        maxReplicas,
-        "HorizontalPodAutoscaler " + autoscaler + " maxReplicas");
+        declared.declared(), maxReplicas, "HorizontalPodAutoscaler " + autoscaler + " maxReplicas");
   }
 }

@@ -18,6 +18,7 @@ import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
 import tools.jackson.dataformat.yaml.YAMLMapper;
+import tools.jackson.dataformat.yaml.YAMLParser;
 
 /**
  * Splits one file's text into documents (multi-document YAML, or JSON values back to back) and
@@ -50,7 +51,7 @@ final class DocumentReader {
       Consumer<LocatedDocument> sink,
       List<Diagnostic> diagnostics) {
     Outcome outcome = new Outcome();
-    String[] lines = text.split("\n", -1);
+    String[] lines = null; // split only when an error needs the next document separator
     int offset = 0; // lines skipped before the current parser's input
     String rest = text;
     while (rest != null) {
@@ -64,7 +65,7 @@ final class DocumentReader {
             continue;
           }
           Map<String, Integer> positions = new HashMap<>();
-          JsonNode root = build(p, t, "", positions, offset);
+          JsonNode root = build(p, t, "", positions, offset, new HashMap<>());
           sink.accept(new LocatedDocument(file, root, positions, start));
         }
       } catch (JacksonException e) {
@@ -72,8 +73,11 @@ final class DocumentReader {
         diagnostics.add(
             Diagnostic.error(
                 new SourceRef(file, Math.max(errorLine, 0)),
-                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, asJson)));
+                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, offset)));
         if (!asJson) {
+          if (lines == null) {
+            lines = text.split("\n", -1);
+          }
           // Resume at the next document separator after the error, if any.
           for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
             if (lines[i].startsWith("---")) {
@@ -94,8 +98,35 @@ final class DocumentReader {
   }
 
   private JsonNode build(
-      JsonParser p, JsonToken t, String pointer, Map<String, Integer> positions, int offset) {
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors) {
     positions.put(pointer, offset + line(p.currentTokenLocation()));
+    if (p instanceof YAMLParser y && t == JsonToken.VALUE_STRING && y.isCurrentAlias()) {
+      // An alias (*name) repeats the node anchored as &name earlier in the document.
+      JsonNode anchored = anchors.get(p.getString());
+      if (anchored != null) {
+        return anchored.deepCopy();
+      }
+    }
+    Object anchor = p.getObjectId();
+    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors);
+    if (anchor != null) {
+      anchors.put(anchor.toString(), node);
+    }
+    return node;
+  }
+
+  private JsonNode buildValue(
+      JsonParser p,
+      JsonToken t,
+      String pointer,
+      Map<String, Integer> positions,
+      int offset,
+      Map<String, JsonNode> anchors) {
     switch (t) {
       case START_OBJECT:
         {
@@ -105,7 +136,7 @@ final class DocumentReader {
             String name = p.currentName();
             String child = pointer + "/" + LocatedDocument.segment(name);
             JsonToken v = p.nextToken();
-            o.set(name, build(p, v, child, positions, offset));
+            o.set(name, build(p, v, child, positions, offset, anchors));
           }
           return o;
         }
@@ -115,7 +146,7 @@ final class DocumentReader {
           JsonToken n;
           int i = 0;
           while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
-            a.add(build(p, n, pointer + "/" + i, positions, offset));
+            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors));
             i++;
           }
           return a;
@@ -158,7 +189,7 @@ final class DocumentReader {
     return line(e.getLocation());
   }
 
-  private static String problem(JacksonException e, boolean asJson) {
+  private static String problem(JacksonException e, int lineOffset) {
     for (Throwable c = e; c != null; c = c.getCause()) {
       if (c instanceof MarkedYamlEngineException m) {
         String problem = m.getProblem() == null ? "" : m.getProblem();
@@ -167,9 +198,14 @@ final class DocumentReader {
           return problem + " (YAML indents with spaces only)";
         }
         String context = m.getContext();
-        return context == null || context.isBlank()
-            ? problem
-            : problem + " (" + context.trim() + ")";
+        if (context == null || context.isBlank()) {
+          return problem;
+        }
+        String started =
+            m.getContextMark()
+                .map(mark -> " started on line " + (mark.getLine() + 1 + lineOffset))
+                .orElse("");
+        return problem + " (" + context.trim() + started + ")";
       }
     }
     String msg = e.getOriginalMessage();

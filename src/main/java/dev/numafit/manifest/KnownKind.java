@@ -10,7 +10,8 @@ import java.util.Optional;
  */
 enum KnownKind {
   POD("Pod", "v1", List.of()),
-  DEPLOYMENT("Deployment", "apps/v1", List.of("extensions/v1beta1", "apps/v1beta1", "apps/v1beta2")),
+  DEPLOYMENT(
+      "Deployment", "apps/v1", List.of("extensions/v1beta1", "apps/v1beta1", "apps/v1beta2")),
   REPLICA_SET("ReplicaSet", "apps/v1", List.of("extensions/v1beta1", "apps/v1beta2")),
   STATEFUL_SET("StatefulSet", "apps/v1", List.of("apps/v1beta1", "apps/v1beta2")),
   DAEMON_SET("DaemonSet", "apps/v1", List.of("extensions/v1beta1", "apps/v1beta2")),

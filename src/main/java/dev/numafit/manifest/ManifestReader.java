@@ -15,7 +15,6 @@ import dev.numafit.diag.SourceRef;
 import io.fabric8.kubernetes.api.model.LimitRange;
 import io.fabric8.kubernetes.api.model.LimitRangeItem;
 import io.fabric8.kubernetes.api.model.Pod;
-import io.fabric8.kubernetes.api.model.PodSpec;
 import io.fabric8.kubernetes.api.model.PodTemplateSpec;
 import io.fabric8.kubernetes.api.model.ReplicationController;
 import io.fabric8.kubernetes.api.model.apps.DaemonSet;
@@ -55,8 +54,8 @@ import tools.jackson.databind.exc.MismatchedInputException;
 /**
  * Reads Kubernetes manifests (files, directories, standard input) into {@link Demand}: one {@link
  * Workload} per pod-bearing object with Kubernetes' own request arithmetic applied (limits-only
- * defaulting, LimitRange defaults, RuntimeClass overhead, sidecar ordering, pod-level resources) and
- * its replica count (HorizontalPodAutoscaler peaks, Job parallelism, DaemonSets per worker).
+ * defaulting, LimitRange defaults, RuntimeClass overhead, sidecar ordering, pod-level resources)
+ * and its replica count (HorizontalPodAutoscaler peaks, Job parallelism, DaemonSets per worker).
  *
  * <p>It never throws for bad input: each problem is a {@link Diagnostic} in {@link
  * Demand#diagnostics()}, an invalid object is left out with an error, and everything valid is still
@@ -68,7 +67,9 @@ public final class ManifestReader {
   public static final String STDIN = "<stdin>";
 
   private static final String GUESS_FLAG = "sized from a custom resource: a guess";
-  private final KubernetesSerialization k8s = new KubernetesSerialization();
+  // Shared: its deserializer cache is costly to build and safe to use from any thread.
+  private static final KubernetesSerialization K8S = new KubernetesSerialization();
+  private final KubernetesSerialization k8s = K8S;
   private final DocumentReader documents = new DocumentReader();
 
   /**
@@ -83,11 +84,15 @@ public final class ManifestReader {
     for (String path : paths) {
       if ("-".equals(path)) {
         if (stdinRead) {
-          s.diags.add(Diagnostic.warning(new SourceRef(STDIN, 0),
-              "standard input given twice; read once"));
+          s.diags.add(
+              Diagnostic.warning(new SourceRef(STDIN, 0), "standard input given twice; read once"));
           continue;
         }
         stdinRead = true;
+        if (stdin == null) {
+          s.diags.add(Diagnostic.error(new SourceRef(STDIN, 0), "no standard input to read"));
+          continue;
+        }
         s.readStdin(stdin);
         continue;
       }
@@ -107,7 +112,11 @@ public final class ManifestReader {
       boolean scalable) {}
 
   private record Autoscaler(
-      String label, String namespace, String targetKind, String targetName, int maxReplicas,
+      String label,
+      String namespace,
+      String targetKind,
+      String targetName,
+      int maxReplicas,
       SourceRef source) {}
 
   private record NamedLimits(String name, LimitDefaults defaults) {}
@@ -136,8 +145,9 @@ public final class ManifestReader {
       try {
         text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
       } catch (IOException e) {
-        diags.add(Diagnostic.error(new SourceRef(STDIN, 0),
-            "cannot read standard input: " + e.getMessage()));
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(STDIN, 0), "cannot read standard input: " + e.getMessage()));
         return;
       }
       String t = text.stripLeading();
@@ -165,9 +175,11 @@ public final class ManifestReader {
         return;
       }
       if (!Files.exists(p)) {
-        diags.add(Diagnostic.error(new SourceRef(path, 0),
-            "no such file or directory (expected a .yaml, .yml or .json file, a directory,"
-                + " or - for standard input)"));
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(path, 0),
+                "no such file or directory (expected a .yaml, .yml or .json file, a directory,"
+                    + " or - for standard input)"));
         return;
       }
       if (Files.isDirectory(p)) {
@@ -179,13 +191,14 @@ public final class ManifestReader {
               .sorted()
               .forEach(files::add);
         } catch (IOException | UncheckedIOException e) {
-          diags.add(Diagnostic.error(new SourceRef(path, 0),
-              "cannot list directory: " + e.getMessage()));
+          diags.add(
+              Diagnostic.error(new SourceRef(path, 0), "cannot list directory: " + e.getMessage()));
           return;
         }
         if (files.isEmpty()) {
-          diags.add(Diagnostic.warning(new SourceRef(path, 0),
-              "no .yaml, .yml or .json files in this directory"));
+          diags.add(
+              Diagnostic.warning(
+                  new SourceRef(path, 0), "no .yaml, .yml or .json files in this directory"));
         }
         files.forEach(f -> readFile(Path.of(f), f));
         return;
@@ -197,11 +210,12 @@ public final class ManifestReader {
       String text;
       try {
         byte[] bytes = Files.readAllBytes(p);
-        text = StandardCharsets.UTF_8.newDecoder()
-            .decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+        text =
+            StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
       } catch (CharacterCodingException e) {
-        diags.add(Diagnostic.error(new SourceRef(shown, 0),
-            "not UTF-8 text (expected a YAML or JSON manifest)"));
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(shown, 0), "not UTF-8 text (expected a YAML or JSON manifest)"));
         return;
       } catch (IOException e) {
         diags.add(Diagnostic.error(new SourceRef(shown, 0), "cannot read: " + e.getMessage()));
@@ -225,23 +239,48 @@ public final class ManifestReader {
       finishText(file, text, docs, o, fileDiags);
     }
 
-    void finishText(String file, String text, List<LocatedDocument> docs,
-        DocumentReader.Outcome o, List<Diagnostic> fileDiags) {
+    void finishText(
+        String file,
+        String text,
+        List<LocatedDocument> docs,
+        DocumentReader.Outcome o,
+        List<Diagnostic> fileDiags) {
       diags.addAll(fileDiags);
       if (o.emptyDocuments > 0) {
-        diags.add(Diagnostic.note(new SourceRef(file, 0), "skipped " + o.emptyDocuments
-            + (o.emptyDocuments == 1 ? " empty or comment-only document"
-                : " empty or comment-only documents")));
+        diags.add(
+            Diagnostic.note(
+                new SourceRef(file, 0),
+                "skipped "
+                    + o.emptyDocuments
+                    + (o.emptyDocuments == 1
+                        ? " empty or comment-only document"
+                        : " empty or comment-only documents")));
       }
-      docs.forEach(this::document);
+      for (LocatedDocument doc : docs) {
+        try {
+          document(doc);
+        } catch (RuntimeException e) {
+          // A safety net: whatever an unexpected document does, the rest is still read.
+          diags.add(
+              Diagnostic.error(
+                  new SourceRef(doc.file(), doc.startLine()),
+                  "cannot read this document ("
+                      + e.getClass().getSimpleName()
+                      + ": "
+                      + e.getMessage()
+                      + ")"));
+        }
+      }
     }
 
     void document(LocatedDocument doc) {
       JsonNode root = doc.root();
       String kind = text(root.get("kind"));
       if (!root.isObject() || kind == null || kind.isBlank()) {
-        diags.add(Diagnostic.note(new SourceRef(doc.file(), doc.startLine()),
-            "not a Kubernetes object (no kind), skipped"));
+        diags.add(
+            Diagnostic.note(
+                new SourceRef(doc.file(), doc.startLine()),
+                "not a Kubernetes object (no kind), skipped"));
         return;
       }
       JsonNode items = root.get("items");
@@ -253,8 +292,10 @@ public final class ManifestReader {
             JsonNode item = items.get(i);
             String k = text(item.get("kind"));
             if (!item.isObject() || (k == null && itemKind == null)) {
-              diags.add(Diagnostic.note(new SourceRef(doc.file(), doc.line(ptr)),
-                  "list item is not a Kubernetes object (no kind), skipped"));
+              diags.add(
+                  Diagnostic.note(
+                      new SourceRef(doc.file(), doc.line(ptr)),
+                      "list item is not a Kubernetes object (no kind), skipped"));
               continue;
             }
             object(doc, ptr, item, k == null ? itemKind : k);
@@ -290,11 +331,28 @@ public final class ManifestReader {
         if (apiVersion == null || apiVersion.isBlank()) {
           diags.add(Diagnostic.warning(source, id + ": no apiVersion; read as " + k.current));
         } else if (k.older.contains(apiVersion)) {
-          diags.add(Diagnostic.note(source, id + ": old apiVersion " + apiVersion
-              + " (now " + k.current + "); read with the current schema"));
+          diags.add(
+              Diagnostic.note(
+                  source,
+                  id
+                      + ": old apiVersion "
+                      + apiVersion
+                      + " (now "
+                      + k.current
+                      + "); read with the current schema"));
         } else if (!k.isCurrent(apiVersion)) {
-          diags.add(Diagnostic.warning(source, id + ": unknown apiVersion " + apiVersion
-              + " for " + kind + " (expected " + k.current + "); read as " + k.current));
+          diags.add(
+              Diagnostic.warning(
+                  source,
+                  id
+                      + ": unknown apiVersion "
+                      + apiVersion
+                      + " for "
+                      + kind
+                      + " (expected "
+                      + k.current
+                      + "); read as "
+                      + k.current));
         }
         boolean ok = known(k, node, ptr, id, source, key, ctx);
         if (!ctx.errors.isEmpty()) {
@@ -326,18 +384,28 @@ public final class ManifestReader {
         String parent = tptr.substring(0, tptr.lastIndexOf('/'));
         JsonNode replicasNode = doc.at(parent).get("replicas");
         Replicas replicas;
-        if (replicasNode != null && replicasNode.isIntegralNumber() && replicasNode.asLong() >= 0
+        if (replicasNode != null
+            && replicasNode.isIntegralNumber()
+            && replicasNode.asLong() >= 0
             && replicasNode.canConvertToInt()) {
-          replicas = new Replicas(replicasNode.asInt(), replicasNode.asInt(),
-              "replicas beside the pod template (a guess)");
+          replicas =
+              new Replicas(
+                  replicasNode.asInt(),
+                  replicasNode.asInt(),
+                  "replicas beside the pod template (a guess)");
         } else {
           replicas = new Replicas(1, 1, "1 assumed: no replicas beside the pod template (a guess)");
         }
-        WorkloadId cid = templates.size() == 1 ? id
-            : new WorkloadId(namespace, kind, name + "[" + templateLabel(tptr.substring(ptr.length()))
-                + "]");
-        found.add(new Candidate(cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas,
-            false, true, false));
+        WorkloadId cid =
+            templates.size() == 1
+                ? id
+                : new WorkloadId(
+                    namespace,
+                    kind,
+                    name + "[" + templateLabel(tptr.substring(ptr.length())) + "]");
+        found.add(
+            new Candidate(
+                cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas, false, true, false));
       }
       if (!ctx.errors.isEmpty()) {
         diags.addAll(ctx.errors);
@@ -348,8 +416,14 @@ public final class ManifestReader {
     }
 
     /** Reads a kind the tool knows; false when the object is left out. */
-    boolean known(KnownKind k, JsonNode node, String ptr, WorkloadId id, SourceRef source,
-        String key, ObjectContext ctx) {
+    boolean known(
+        KnownKind k,
+        JsonNode node,
+        String ptr,
+        WorkloadId id,
+        SourceRef source,
+        String key,
+        ObjectContext ctx) {
       String spec = ptr + "/spec";
       String template = spec + "/template/spec";
       switch (k) {
@@ -359,7 +433,7 @@ public final class ManifestReader {
             return false;
           }
           PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false));
+          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false), ctx);
         }
         case DEPLOYMENT -> {
           Deployment o = convert(node, Deployment.class, ptr, ctx);
@@ -367,8 +441,15 @@ public final class ManifestReader {
             return false;
           }
           var s = o.getSpec();
-          scalable(key, id, source, s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(), template, spec, ctx);
+          scalable(
+              key,
+              id,
+              source,
+              s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(),
+              template,
+              spec,
+              ctx);
         }
         case REPLICA_SET -> {
           ReplicaSet o = convert(node, ReplicaSet.class, ptr, ctx);
@@ -376,8 +457,15 @@ public final class ManifestReader {
             return false;
           }
           var s = o.getSpec();
-          scalable(key, id, source, s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(), template, spec, ctx);
+          scalable(
+              key,
+              id,
+              source,
+              s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(),
+              template,
+              spec,
+              ctx);
         }
         case STATEFUL_SET -> {
           StatefulSet o = convert(node, StatefulSet.class, ptr, ctx);
@@ -385,8 +473,15 @@ public final class ManifestReader {
             return false;
           }
           var s = o.getSpec();
-          scalable(key, id, source, s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(), template, spec, ctx);
+          scalable(
+              key,
+              id,
+              source,
+              s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(),
+              template,
+              spec,
+              ctx);
         }
         case REPLICATION_CONTROLLER -> {
           ReplicationController o = convert(node, ReplicationController.class, ptr, ctx);
@@ -394,8 +489,15 @@ public final class ManifestReader {
             return false;
           }
           var s = o.getSpec();
-          scalable(key, id, source, s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(), template, spec, ctx);
+          scalable(
+              key,
+              id,
+              source,
+              s == null ? null : s.getReplicas(),
+              s == null ? null : s.getTemplate(),
+              template,
+              spec,
+              ctx);
         }
         case DAEMON_SET -> {
           DaemonSet o = convert(node, DaemonSet.class, ptr, ctx);
@@ -404,7 +506,10 @@ public final class ManifestReader {
           }
           PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
           PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false));
+          put(
+              key,
+              new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false),
+              ctx);
         }
         case JOB -> {
           Job o = convert(node, Job.class, ptr, ctx);
@@ -427,20 +532,36 @@ public final class ManifestReader {
             return false;
           }
           var s = o.getSpec();
-          if (s == null || s.getMaxReplicas() == null || s.getScaleTargetRef() == null
+          if (s == null
+              || s.getMaxReplicas() == null
+              || s.getScaleTargetRef() == null
               || s.getScaleTargetRef().getKind() == null
               || s.getScaleTargetRef().getName() == null) {
             ctx.error(spec, "spec.maxReplicas and spec.scaleTargetRef (kind, name) are required");
             return false;
           }
-          if (s.getMaxReplicas() < 0) {
-            ctx.error(spec + "/maxReplicas", "spec.maxReplicas " + s.getMaxReplicas()
-                + " is negative (expected 1 or more)");
+          // minReplicas defaults to 1 and maxReplicas may not be below it (HPA API reference, K20).
+          int min = s.getMinReplicas() == null ? 1 : s.getMinReplicas();
+          if (s.getMaxReplicas() < min) {
+            ctx.error(
+                spec + "/maxReplicas",
+                "spec.maxReplicas "
+                    + s.getMaxReplicas()
+                    + " is below minReplicas "
+                    + min
+                    + (s.getMinReplicas() == null ? " (the default)" : "")
+                    + " (expected maxReplicas >= minReplicas)");
             return false;
           }
-          autoscalers.put(key, new Autoscaler(id.namespace() + "/" + id.name(), id.namespace(),
-              s.getScaleTargetRef().getKind(), s.getScaleTargetRef().getName(),
-              s.getMaxReplicas(), source));
+          autoscalers.put(
+              key,
+              new Autoscaler(
+                  id.namespace() + "/" + id.name(),
+                  id.namespace(),
+                  s.getScaleTargetRef().getKind(),
+                  s.getScaleTargetRef().getName(),
+                  s.getMaxReplicas(),
+                  source));
         }
         case LIMIT_RANGE -> {
           LimitRange o = convert(node, LimitRange.class, ptr, ctx);
@@ -449,7 +570,8 @@ public final class ManifestReader {
           }
           LimitDefaults d = LimitDefaults.NONE;
           List<LimitRangeItem> items =
-              o.getSpec() == null || o.getSpec().getLimits() == null ? List.of()
+              o.getSpec() == null || o.getSpec().getLimits() == null
+                  ? List.of()
                   : o.getSpec().getLimits();
           for (int i = 0; i < items.size(); i++) {
             LimitRangeItem item = items.get(i);
@@ -457,16 +579,29 @@ public final class ManifestReader {
               continue;
             }
             String ip = spec + "/limits/" + i;
-            d = d.then(LimitDefaults.fromItem(
-                PodSpecs.quantities(item.getMax(), ip + "/max", "spec.limits[" + i + "].max", ctx),
-                PodSpecs.quantities(item.getMin(), ip + "/min", "spec.limits[" + i + "].min", ctx),
-                PodSpecs.quantities(item.getDefault(), ip + "/default",
-                    "spec.limits[" + i + "].default", ctx),
-                PodSpecs.quantities(item.getDefaultRequest(), ip + "/defaultRequest",
-                    "spec.limits[" + i + "].defaultRequest", ctx)));
+            d =
+                d.then(
+                    LimitDefaults.fromItem(
+                        PodSpecs.quantities(
+                            item.getMax(), ip + "/max", "spec.limits[" + i + "].max", ctx),
+                        PodSpecs.quantities(
+                            item.getMin(), ip + "/min", "spec.limits[" + i + "].min", ctx),
+                        PodSpecs.quantities(
+                            item.getDefault(),
+                            ip + "/default",
+                            "spec.limits[" + i + "].default",
+                            ctx),
+                        PodSpecs.quantities(
+                            item.getDefaultRequest(),
+                            ip + "/defaultRequest",
+                            "spec.limits[" + i + "].defaultRequest",
+                            ctx)));
           }
-          limitRanges.computeIfAbsent(id.namespace(), n -> new TreeMap<>())
-              .put(key, new NamedLimits(id.name(), d));
+          if (ctx.errors.isEmpty()) {
+            limitRanges
+                .computeIfAbsent(id.namespace(), n -> new TreeMap<>())
+                .put(key, new NamedLimits(id.name(), d));
+          }
         }
         case RUNTIME_CLASS -> {
           RuntimeClass o = convert(node, RuntimeClass.class, ptr, ctx);
@@ -475,59 +610,94 @@ public final class ManifestReader {
           }
           SortedMap<String, BigDecimal> fixed = new TreeMap<>();
           if (o.getOverhead() != null) {
-            fixed = PodSpecs.quantities(o.getOverhead().getPodFixed(), ptr + "/overhead/podFixed",
-                "overhead.podFixed", ctx);
+            fixed =
+                PodSpecs.quantities(
+                    o.getOverhead().getPodFixed(),
+                    ptr + "/overhead/podFixed",
+                    "overhead.podFixed",
+                    ctx);
           }
-          runtimeClasses.put(id.name(), new Overhead(fixed, source));
+          if (ctx.errors.isEmpty()) {
+            runtimeClasses.put(id.name(), new Overhead(fixed, source));
+          }
         }
         default -> throw new IllegalStateException(k.toString());
       }
       return true;
     }
 
-    void scalable(String key, WorkloadId id, SourceRef source, Integer replicas,
-        PodTemplateSpec t, String templatePtr, String specPtr, ObjectContext ctx) {
+    void scalable(
+        String key,
+        WorkloadId id,
+        SourceRef source,
+        Integer replicas,
+        PodTemplateSpec t,
+        String templatePtr,
+        String specPtr,
+        ObjectContext ctx) {
       if (replicas != null && replicas < 0) {
-        ctx.error(specPtr + "/replicas", "spec.replicas " + replicas
-            + " is negative (expected 0 or more)");
+        ctx.error(
+            specPtr + "/replicas",
+            "spec.replicas " + replicas + " is negative (expected 0 or more)");
         return;
       }
       PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), templatePtr, ctx);
-      put(key, new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false,
-          true));
+      put(
+          key,
+          new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false, true),
+          ctx);
     }
 
-    void job(String key, WorkloadId id, SourceRef source, JobSpec s, String jobSpecPtr,
+    void job(
+        String key,
+        WorkloadId id,
+        SourceRef source,
+        JobSpec s,
+        String jobSpecPtr,
         ObjectContext ctx) {
       Integer parallelism = s == null ? null : s.getParallelism();
       Integer completions = s == null ? null : s.getCompletions();
       if (parallelism != null && parallelism < 0) {
-        ctx.error(jobSpecPtr + "/parallelism", "parallelism " + parallelism
-            + " is negative (expected 0 or more)");
+        ctx.error(
+            jobSpecPtr + "/parallelism",
+            "parallelism " + parallelism + " is negative (expected 0 or more)");
         return;
       }
       if (completions != null && completions < 0) {
-        ctx.error(jobSpecPtr + "/completions", "completions " + completions
-            + " is negative (expected 0 or more)");
+        ctx.error(
+            jobSpecPtr + "/completions",
+            "completions " + completions + " is negative (expected 0 or more)");
         return;
       }
       PodTemplateSpec t = s == null ? null : s.getTemplate();
-      PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(),
-          jobSpecPtr + "/template/spec", ctx);
-      put(key, new Candidate(id, source, pod, ReplicaRules.job(parallelism, completions), false,
-          false, false));
+      PodModel pod =
+          PodSpecs.toModel(t == null ? null : t.getSpec(), jobSpecPtr + "/template/spec", ctx);
+      put(
+          key,
+          new Candidate(
+              id, source, pod, ReplicaRules.job(parallelism, completions), false, false, false),
+          ctx);
     }
 
-    void put(String key, Candidate c) {
-      workloads.put(key, c);
+    void put(String key, Candidate c, ObjectContext ctx) {
+      if (ctx.errors.isEmpty()) {
+        workloads.put(key, c);
+      }
     }
 
     /** Records an object's place; a second definition warns and the later one wins. */
     void duplicate(String key, SourceRef source, WorkloadId id) {
       SourceRef before = seen.get(key);
       if (before != null && !before.equals(source)) {
-        diags.add(Diagnostic.warning(source, id + " is defined twice, at " + before + " and at "
-            + source + "; the later definition is used"));
+        diags.add(
+            Diagnostic.warning(
+                source,
+                id
+                    + " is defined twice, at "
+                    + before
+                    + " and at "
+                    + source
+                    + "; the later definition is used"));
       }
       seen.put(key, source);
     }
@@ -564,11 +734,14 @@ public final class ManifestReader {
         }
         String field = dotted.length() == 0 ? "object" : dotted.toString();
         JsonNode value = ctx.doc.at(pointer.toString());
-        String got = value == null || value.isMissingNode() ? "an unreadable value"
-            : value.isObject() ? "a mapping"
-            : value.isArray() ? "a list"
-            : value.isNull() ? "null"
-            : "\"" + value.asString() + "\"";
+        String got =
+            value == null || value.isMissingNode()
+                ? "an unreadable value"
+                : value.isObject()
+                    ? "a mapping"
+                    : value.isArray()
+                        ? "a list"
+                        : value.isNull() ? "null" : "\"" + value.asString() + "\"";
         ctx.error(pointer.toString(), field + " expects " + describe(target) + ", got " + got);
         return null;
       }
@@ -576,26 +749,38 @@ public final class ManifestReader {
 
     Demand finish() {
       Map<String, LimitDefaults> defaults = new TreeMap<>();
-      limitRanges.forEach((ns, byKey) -> {
-        List<NamedLimits> sorted = new ArrayList<>(byKey.values());
-        sorted.sort((a, b) -> a.name().compareTo(b.name()));
-        LimitDefaults d = LimitDefaults.NONE;
-        for (NamedLimits n : sorted) {
-          d = d.then(n.defaults());
-        }
-        defaults.put(ns, d);
-      });
+      limitRanges.forEach(
+          (ns, byKey) -> {
+            List<NamedLimits> sorted = new ArrayList<>(byKey.values());
+            sorted.sort((a, b) -> a.name().compareTo(b.name()));
+            LimitDefaults d = LimitDefaults.NONE;
+            for (NamedLimits n : sorted) {
+              d = d.then(n.defaults());
+            }
+            defaults.put(ns, d);
+          });
 
       Map<String, List<Autoscaler>> byTarget = new TreeMap<>();
       for (Autoscaler a : autoscalers.values()) {
         String target = a.namespace() + "/" + a.targetKind() + "/" + a.targetName();
-        boolean hit = workloads.values().stream()
-            .anyMatch(c -> c.scalable() && c.id().toString().equals(target));
-        if (!hit) {
-          diags.add(Diagnostic.note(a.source(), "HorizontalPodAutoscaler " + a.label()
-              + " targets " + a.targetKind() + " " + a.targetName()
-              + ", which is not a Deployment, ReplicaSet, StatefulSet or ReplicationController"
-              + " in the input; ignored"));
+        Candidate hit = workloads.get(target);
+        if (hit == null || !hit.scalable()) {
+          String why =
+              customs.containsKey(target)
+                  ? ", a custom resource: its replica count stays a guess"
+                  : ", which is not a Deployment, ReplicaSet, StatefulSet or"
+                      + " ReplicationController in the input";
+          diags.add(
+              Diagnostic.note(
+                  a.source(),
+                  "HorizontalPodAutoscaler "
+                      + a.label()
+                      + " targets "
+                      + a.targetKind()
+                      + " "
+                      + a.targetName()
+                      + why
+                      + "; ignored"));
           continue;
         }
         byTarget.computeIfAbsent(target, t -> new ArrayList<>()).add(a);
@@ -639,14 +824,27 @@ public final class ManifestReader {
         String rc = pod.runtimeClassName().get();
         Overhead o = runtimeClasses.get(rc);
         if (o == null) {
-          diags.add(Diagnostic.warning(c.source(), c.id() + ": RuntimeClass \"" + rc
-              + "\" is not in the input, so its pod overhead is unknown"
-              + (pod.overhead().isEmpty() ? " and counted as zero" : "; spec.overhead is used")));
+          diags.add(
+              Diagnostic.warning(
+                  c.source(),
+                  c.id()
+                      + ": RuntimeClass \""
+                      + rc
+                      + "\" is not in the input, so its pod overhead is unknown"
+                      + (pod.overhead().isEmpty()
+                          ? " and counted as zero"
+                          : "; spec.overhead is used")));
           flags.add("overhead unknown: RuntimeClass " + rc + " not in input");
         } else if (!o.podFixed().isEmpty()) {
           if (!pod.overhead().isEmpty() && !pod.overhead().equals(o.podFixed())) {
-            diags.add(Diagnostic.warning(c.source(), c.id() + ": spec.overhead differs from"
-                + " RuntimeClass \"" + rc + "\" overhead.podFixed; the RuntimeClass's is used"));
+            diags.add(
+                Diagnostic.warning(
+                    c.source(),
+                    c.id()
+                        + ": spec.overhead differs from"
+                        + " RuntimeClass \""
+                        + rc
+                        + "\" overhead.podFixed; the RuntimeClass's is used"));
           }
           pod = Admission.applyOverhead(pod, o.podFixed());
         }
@@ -668,12 +866,18 @@ public final class ManifestReader {
           }
         }
         if (hpas.size() > 1) {
-          diags.add(Diagnostic.warning(c.source(), c.id() + " is the target of "
-              + hpas.size() + " HorizontalPodAutoscalers; the largest maxReplicas ("
-              + top.label() + ") is used"));
+          diags.add(
+              Diagnostic.warning(
+                  c.source(),
+                  c.id()
+                      + " is the target of "
+                      + hpas.size()
+                      + " HorizontalPodAutoscalers; the largest maxReplicas ("
+                      + top.label()
+                      + ") is used"));
         }
-        replicas = ReplicaRules.autoscaled(replicas, top.maxReplicas(), top.label(),
-            opts.replicaMode());
+        replicas =
+            ReplicaRules.autoscaled(replicas, top.maxReplicas(), top.label(), opts.replicaMode());
       }
       if (c.custom()) {
         flags.add(GUESS_FLAG);

@@ -31,11 +31,16 @@ final class PodSpecs {
   static PodModel toModel(PodSpec spec, String specPtr, ObjectContext ctx) {
     if (spec == null) {
       ctx.error(specPtr, "no pod spec (expected a pod template with spec.containers)");
-      return new PodModel(List.of(), List.of(), new TreeMap<>(), new TreeMap<>(), new TreeMap<>(),
+      return new PodModel(
+          List.of(),
+          List.of(),
+          new TreeMap<>(),
+          new TreeMap<>(),
+          new TreeMap<>(),
           Optional.empty());
     }
-    List<ContainerSpec> init = containers(spec.getInitContainers(), specPtr + "/initContainers",
-        true, ctx);
+    List<ContainerSpec> init =
+        containers(spec.getInitContainers(), specPtr + "/initContainers", true, ctx);
     List<ContainerSpec> app = containers(spec.getContainers(), specPtr + "/containers", false, ctx);
     if (app.isEmpty()) {
       ctx.error(specPtr, "pod spec has no containers (expected at least one in spec.containers)");
@@ -46,13 +51,21 @@ final class PodSpecs {
     SortedMap<String, BigDecimal> podRequests = new TreeMap<>();
     SortedMap<String, BigDecimal> podLimits = new TreeMap<>();
     if (podLevel != null) {
-      podRequests = quantities(podLevel.getRequests(), specPtr + "/resources/requests",
-          "pod-level resources.requests", ctx);
-      podLimits = quantities(podLevel.getLimits(), specPtr + "/resources/limits",
-          "pod-level resources.limits", ctx);
+      podRequests =
+          quantities(
+              podLevel.getRequests(),
+              specPtr + "/resources/requests",
+              "pod-level resources.requests",
+              ctx);
+      podLimits =
+          quantities(
+              podLevel.getLimits(),
+              specPtr + "/resources/limits",
+              "pod-level resources.limits",
+              ctx);
     }
-    Optional<String> runtimeClass = Optional.ofNullable(spec.getRuntimeClassName())
-        .filter(s -> !s.isBlank());
+    Optional<String> runtimeClass =
+        Optional.ofNullable(spec.getRuntimeClassName()).filter(s -> !s.isBlank());
     return new PodModel(init, app, overhead, podRequests, podLimits, runtimeClass);
   }
 
@@ -71,14 +84,16 @@ final class PodSpecs {
       }
       String name = c.getName() == null ? "#" + i : c.getName();
       ContainerRole role =
-          !init ? ContainerRole.APP
+          !init
+              ? ContainerRole.APP
               : "Always".equals(c.getRestartPolicy()) ? ContainerRole.SIDECAR : ContainerRole.INIT;
       ResourceRequirements r = c.getResources();
       String what = "container \"" + name + "\": resources.";
       SortedMap<String, BigDecimal> requests = new TreeMap<>();
       SortedMap<String, BigDecimal> limits = new TreeMap<>();
       if (r != null) {
-        requests = quantities(r.getRequests(), cptr + "/resources/requests", what + "requests", ctx);
+        requests =
+            quantities(r.getRequests(), cptr + "/resources/requests", what + "requests", ctx);
         limits = quantities(r.getLimits(), cptr + "/resources/limits", what + "limits", ctx);
       }
       out.add(new ContainerSpec(name, role, requests, limits));
@@ -108,7 +123,6 @@ final class PodSpecs {
 
   /** One quantity in base units, or empty after recording an error. */
   static Optional<BigDecimal> amount(Quantity q, String ptr, String field, ObjectContext ctx) {
-    String written = ctx.written(ptr, q);
     BigDecimal v;
     try {
       if (q == null) {
@@ -116,17 +130,26 @@ final class PodSpecs {
       }
       v = q.getNumericalAmount();
     } catch (RuntimeException ex) {
-      ctx.error(ptr, field + " \"" + written + "\" is not a Kubernetes quantity " + EXPECTED);
+      ctx.error(
+          ptr, field + " \"" + ctx.written(ptr, q) + "\" is not a Kubernetes quantity " + EXPECTED);
       return Optional.empty();
     }
     if (v.signum() < 0) {
-      ctx.error(ptr, field + " \"" + written
-          + "\" is negative (expected a quantity of zero or more, e.g. 500m, 2, 1.5Gi)");
+      ctx.error(
+          ptr,
+          field
+              + " \""
+              + ctx.written(ptr, q)
+              + "\" is negative (expected a quantity of zero or more, e.g. 500m, 2, 1.5Gi)");
       return Optional.empty();
     }
     if (v.compareTo(LONG_MAX) > 0) {
-      ctx.error(ptr, field + " \"" + written
-          + "\" is larger than a Kubernetes quantity can hold (at most 2^63-1)");
+      ctx.error(
+          ptr,
+          field
+              + " \""
+              + ctx.written(ptr, q)
+              + "\" is larger than a Kubernetes quantity can hold (at most 2^63-1)");
       return Optional.empty();
     }
     return Optional.of(v);

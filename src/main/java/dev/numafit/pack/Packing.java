@@ -13,15 +13,21 @@ public final class Packing {
   private final int bins;
   private final int[] binOfItem;
   private final long steps;
+  private final int lowerBound;
 
   /**
    * @param bins bins used, at least the largest bin number plus one
    * @param binOfItem for item {@code i}, the bin it was placed in
    * @param steps search steps spent
+   * @param lowerBound the {@link LowerBound} of the instance, at most {@code bins}
    */
-  public Packing(int bins, int[] binOfItem, long steps) {
+  public Packing(int bins, int[] binOfItem, long steps, int lowerBound) {
     if (bins < 0 || steps < 0) {
       throw new IllegalArgumentException("bins and steps must be >= 0");
+    }
+    if (lowerBound < 0 || lowerBound > bins) {
+      throw new IllegalArgumentException(
+          "lower bound " + lowerBound + " outside 0.." + bins + ": the packing or bound is wrong");
     }
     for (int b : binOfItem) {
       if (b < 0 || b >= bins) {
@@ -31,6 +37,12 @@ public final class Packing {
     this.bins = bins;
     this.binOfItem = binOfItem.clone();
     this.steps = steps;
+    this.lowerBound = lowerBound;
+  }
+
+  /** No packing of these items uses fewer bins than this ({@link LowerBound#of}). */
+  public int lowerBound() {
+    return lowerBound;
   }
 
   /** Bins used. */
@@ -79,6 +91,7 @@ public final class Packing {
     return o instanceof Packing p
         && p.bins == bins
         && p.steps == steps
+        && p.lowerBound == lowerBound
         && Arrays.equals(p.binOfItem, binOfItem);
   }
 
@@ -89,6 +102,7 @@ public final class Packing {
 
   @Override
   public String toString() {
-    return "Packing[bins=" + bins + ", items=" + binOfItem.length + ", steps=" + steps + "]";
+    return "Packing[bins=" + bins + ", lowerBound=" + lowerBound + ", items=" + binOfItem.length
+        + ", steps=" + steps + "]";
   }
 }

@@ -24,8 +24,11 @@ import java.util.Map;
  * step per bin per distinct item, not per item: 150,000 pods of 5,000 workloads pack quickly.
  */
 public final class VectorPacker {
-  /** Default step budget: enough for the improvement pass on instances of a few hundred items. */
-  public static final long DEFAULT_STEP_BUDGET = 20_000_000L;
+  /**
+   * Default step budget. On the published instances (docs/performance.md) larger budgets gained
+   * almost nothing; on 150,000 pods this keeps packing well under half a second.
+   */
+  public static final long DEFAULT_STEP_BUDGET = 2_000_000L;
 
   private final long stepBudget;
 
@@ -74,7 +77,7 @@ public final class VectorPacker {
   public Packing pack(long[][] items, long[] capacity) {
     Instance in = Instance.of(items, capacity);
     if (in.n == 0) {
-      return new Packing(0, new int[0], 0);
+      return new Packing(0, new int[0], 0, 0);
     }
     Search s = new Search(in, stepBudget);
     return s.run(LowerBound.of(items, capacity));
@@ -218,20 +221,42 @@ public final class VectorPacker {
       this.budget = budget;
     }
 
+    private static final long MBS_SHALLOW = 1_000;
+    private static final long MBS_DEEP = 200_000;
     Packing run(int lowerBound) {
       int[] best = greedy(order(maxNormKeys()), false, Long.MAX_VALUE);
       int bestBins = binsOf(best);
+      long firstPassSteps = steps;
       double[][] orders = {sumNormKeys(), weightedKeys(), maxNormKeys(), weightedKeys()};
       boolean[] bestFit = {false, false, true, true};
       for (int p = 0; p < orders.length && bestBins > lowerBound && steps < budget; p++) {
-        int[] candidate = greedy(order(orders[p]), bestFit[p], budget);
+        // A best-fit pass scans every bin for every distinct item and every bin it fills: skip it
+        // when that alone would overrun the budget, rather than spend steps and discard them.
+        if (bestFit[p] && ((long) in.types + bestBins) * bestBins > budget - steps) {
+          continue;
+        }
+        // Another order can make the first-fit index search much longer (no single bin has room
+        // in every dimension even where each dimension alone does): cap such a pass at a few
+        // times what the first pass cost, so a bad order cannot eat the whole budget.
+        if (!bestFit[p] && budget - steps < firstPassSteps) {
+          continue;
+        }
+        long cap = bestFit[p] ? budget : Math.min(budget, steps + 4 * firstPassSteps);
+        int[] candidate = greedy(order(orders[p]), bestFit[p], cap);
         if (candidate != null && binsOf(candidate) < bestBins) {
           best = candidate;
           bestBins = binsOf(candidate);
         }
       }
-      if (bestBins > lowerBound && steps < budget) {
-        int[] candidate = minimumBinSlack(order(sumNormKeys()), lowerBound);
+      // Bin-by-bin subset search, shallow then deep: a deeper search per bin is not always
+      // better overall (it can use up the items that would complete later bins), so keep both.
+      double[] keys = sumNormKeys();
+      int[] mbsOrderByKey = order(keys);
+      for (long perBin : new long[] {MBS_SHALLOW, MBS_DEEP}) {
+        if (bestBins <= lowerBound || steps >= budget) {
+          break;
+        }
+        int[] candidate = minimumBinSlack(mbsOrderByKey, keys, bestBins, perBin);
         if (candidate != null && binsOf(candidate) < bestBins) {
           best = candidate;
           bestBins = binsOf(candidate);
@@ -241,7 +266,7 @@ public final class VectorPacker {
         Improver improver = new Improver(in, best, sumNormItemKeys());
         best = improver.run(lowerBound);
       }
-      return new Packing(binsOf(best), best, steps);
+      return new Packing(binsOf(best), best, steps, lowerBound);
     }
 
     private static int binsOf(int[] binOfItem) {
@@ -332,7 +357,7 @@ public final class VectorPacker {
      */
     private int[] greedy(int[] order, boolean bestFit, long limit) {
       int d = in.d;
-      Bins bins = new Bins(d, in.cap);
+      Bins bins = new Bins(d, in.cap, in.n);
       int[] placeType = new int[16];
       int[] placeBin = new int[16];
       int[] placeCount = new int[16];
@@ -344,22 +369,24 @@ public final class VectorPacker {
           int chosen = -1;
           long chosenFit = 0;
           double chosenSlack = Double.MAX_VALUE;
-          for (int b = bins.nextOpen(from); b < bins.size; b = bins.nextOpen(b + 1)) {
-            steps++;
-            long fit = bins.fitCount(b, in.w, t);
-            if (fit == 0) {
-              continue;
+          if (!bestFit) {
+            chosen = bins.firstFit(in.w, t, from);
+            if (chosen >= 0) {
+              chosenFit = bins.fitCount(chosen, in.w, t);
             }
-            if (!bestFit) {
-              chosen = b;
-              chosenFit = fit;
-              break;
-            }
-            double slack = bins.slackAfter(b, in.w, t, Math.min(fit, left));
-            if (slack < chosenSlack) {
-              chosen = b;
-              chosenFit = fit;
-              chosenSlack = slack;
+          } else {
+            for (int b = bins.nextOpen(0); b < bins.size; b = bins.nextOpen(b + 1)) {
+              steps++;
+              long fit = bins.fitCount(b, in.w, t);
+              if (fit == 0) {
+                continue;
+              }
+              double slack = bins.slackAfter(b, in.w, t, Math.min(fit, left));
+              if (slack < chosenSlack) {
+                chosen = b;
+                chosenFit = fit;
+                chosenSlack = slack;
+              }
             }
           }
           if (steps > limit) {
@@ -402,6 +429,8 @@ public final class VectorPacker {
 
     private int[] mbsRemaining;
     private int[] mbsOrder;
+    private double[] mbsKey;
+    private int[] mbsAlive;
     private long[] mbsRes;
     private int[] mbsStack;
     private int mbsDepth;
@@ -419,9 +448,17 @@ public final class VectorPacker {
      * cut off after a share of the remaining step budget, so it degrades to a greedy fill on large
      * inputs. Returns null when the budget runs out.
      */
-    private int[] minimumBinSlack(int[] order, int lowerBound) {
+    private int[] minimumBinSlack(int[] order, double[] typeKeys, int binsToBeat, long perBin) {
       int d = in.d;
       mbsOrder = order;
+      mbsKey = new double[order.length];
+      for (int j = 0; j < order.length; j++) {
+        mbsKey[j] = typeKeys[order[j]];
+      }
+      mbsAlive = new int[order.length + 1];
+      for (int j = 0; j <= order.length; j++) {
+        mbsAlive[j] = j;
+      }
       mbsRemaining = in.count.clone();
       mbsRes = new long[d];
       mbsStack = new int[16];
@@ -438,8 +475,14 @@ public final class VectorPacker {
         while (mbsRemaining[order[first]] == 0) {
           first++;
         }
-        long share = (budget - steps) / Math.max(1, lowerBound - bin);
-        mbsLimit = Math.max(in.types, Math.min(share, 200_000L));
+        if (bin >= binsToBeat - 1) {
+          // Cannot end with fewer bins than the packing it is meant to beat.
+          return null;
+        }
+        // Half the remaining budget spread over the bins still to fill: the budget cannot run
+        // out before the last bin that could still beat the best packing.
+        long share = (budget - steps) / (2L * (binsToBeat - bin));
+        mbsLimit = Math.max(64, Math.min(share, perBin));
         mbsLocalSteps = 0;
         System.arraycopy(in.cap, 0, mbsRes, 0, d);
         mbsDepth = 0;
@@ -453,7 +496,9 @@ public final class VectorPacker {
         }
         for (int i = 0; i < mbsBestDepth; i++) {
           int t = order[mbsBest[i]];
-          mbsRemaining[t]--;
+          if (--mbsRemaining[t] == 0) {
+            mbsAlive[mbsBest[i]] = mbsBest[i] + 1;
+          }
           binOfItem[in.members[t][nextMember[t]++]] = bin;
           left--;
         }
@@ -464,7 +509,10 @@ public final class VectorPacker {
 
     /** Returns true when a bin with no slack at all was found: nothing can beat it. */
     private boolean search(int from) {
-      for (int j = from; j < mbsOrder.length; j++) {
+      // An item fits only if its normalised sum is at most the bin's normalised slack, and the
+      // order is by that sum: skip straight past the items that are too large.
+      int start = Math.max(from, firstKeyAtMost(slack() + 1e-9));
+      for (int j = alive(start); j < mbsOrder.length; j = alive(j + 1)) {
         int t = mbsOrder[j];
         if (mbsRemaining[t] == 0) {
           continue;
@@ -495,6 +543,29 @@ public final class VectorPacker {
         }
       }
       return false;
+    }
+
+    private int firstKeyAtMost(double x) {
+      int lo = 0;
+      int hi = mbsKey.length;
+      while (lo < hi) {
+        int mid = (lo + hi) >>> 1;
+        if (mbsKey[mid] <= x) {
+          hi = mid;
+        } else {
+          lo = mid + 1;
+        }
+      }
+      return lo;
+    }
+
+    /** The first position at or after j whose type still has items (committed), path-halving. */
+    private int alive(int j) {
+      while (mbsAlive[j] != j) {
+        mbsAlive[j] = mbsAlive[mbsAlive[j]];
+        j = mbsAlive[j];
+      }
+      return j;
     }
 
     private void take(int j) {
@@ -539,30 +610,72 @@ public final class VectorPacker {
       mbsBestSlack = slack();
     }
 
-    /** Residual room of open bins, flat, with a skip list past bins that can take nothing more. */
-    private static final class Bins {
+    /**
+     * Residual room of open bins, flat, with two indexes: a skip list past bins that can take
+     * nothing more (for best fit), and a segment tree of per-dimension maxima of the residuals
+     * (for first fit: the first bin where every dimension has room is found in about log(bins)
+     * steps instead of a scan, which keeps 150,000 pods fast).
+     */
+    private final class Bins {
       final int d;
       final long[] cap;
-      long[] res;
+      final long[] res;
       /** Union-find style pointer to the next bin at or after b that may still take an item. */
-      int[] next;
+      final int[] next;
+      final int leaves;
+      final long[] tree;
       int size;
 
-      Bins(int d, long[] cap) {
+      Bins(int d, long[] cap, int maxBins) {
         this.d = d;
         this.cap = cap;
-        this.res = new long[Math.max(1, d) * 64];
-        this.next = new int[64];
+        this.res = new long[Math.max(1, maxBins) * d];
+        this.next = new int[Math.max(1, maxBins) + 1];
+        this.leaves = Integer.highestOneBit(Math.max(1, maxBins - 1)) * 2;
+        this.tree = new long[2 * leaves * d];
       }
 
       int open() {
-        if (size == next.length) {
-          next = Arrays.copyOf(next, size * 2);
-          res = Arrays.copyOf(res, Math.max(1, d) * size * 2);
-        }
         System.arraycopy(cap, 0, res, size * d, d);
         next[size] = size;
+        update(size);
         return size++;
+      }
+
+      private void update(int b) {
+        int node = leaves + b;
+        System.arraycopy(res, b * d, tree, node * d, d);
+        for (node >>= 1; node >= 1; node >>= 1) {
+          int l = 2 * node * d;
+          int r = l + d;
+          for (int k = 0; k < d; k++) {
+            tree[node * d + k] = Math.max(tree[l + k], tree[r + k]);
+          }
+        }
+      }
+
+      /** The first open bin at or after {@code from} that fits one item of type t, or -1. */
+      int firstFit(long[] w, int t, int from) {
+        return from >= size ? -1 : find(1, 0, leaves, from, w, t * d);
+      }
+
+      private int find(int node, int lo, int hi, int from, long[] w, int wt) {
+        if (hi <= from || lo >= size) {
+          return -1;
+        }
+        steps++;
+        for (int k = 0; k < d; k++) {
+          if (tree[node * d + k] < w[wt + k]) {
+            return -1;
+          }
+        }
+        if (hi - lo == 1) {
+          // A leaf holds the bin's own residual: every dimension has room.
+          return lo;
+        }
+        int mid = (lo + hi) >>> 1;
+        int found = find(2 * node, lo, mid, from, w, wt);
+        return found >= 0 ? found : find(2 * node + 1, mid, hi, from, w, wt);
       }
 
       int nextOpen(int b) {
@@ -621,6 +734,7 @@ public final class VectorPacker {
         if (closed) {
           next[b] = b + 1;
         }
+        update(b);
       }
     }
 

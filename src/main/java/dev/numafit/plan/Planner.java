@@ -5,14 +5,12 @@ import dev.numafit.demand.Workload;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.fit.OversizeCheck;
 import dev.numafit.fit.SpanningRoom;
-import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
 import dev.numafit.pack.VectorPacker;
 import dev.numafit.resource.Resources;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.OptionalInt;
@@ -39,7 +37,7 @@ import java.util.TreeSet;
  *   <li>Pods that do not fit the room are reported as oversize ({@link OversizeCheck}) and not
  *       packed; resources with no capacity are reported as unchecked.
  *   <li>The rest are packed ({@link VectorPacker}) over every resource that has a capacity; the
- *       {@link LowerBound} says how close the packing is.
+ *       lower bound ({@link dev.numafit.pack.LowerBound}) says how close the packing is.
  *   <li>Hosts = {@code ceil(workers / workersPerHost) + hostFailures}.
  *   <li>Utilization per resource = (packed requests + per-worker demand × workers) / (allocatable
  *       × workers), 4 decimals; the binding resource has the highest.
@@ -67,8 +65,12 @@ public final class Planner {
     Resources allocatable = in.allocatable();
     SortedSet<String> checked = new TreeSet<>(allocatable.names());
 
-    List<Workload> workloads = new ArrayList<>(demand.workloads());
-    workloads.sort(Comparator.comparing(Workload::id));
+    // Sorted by printed id, each id printed once (WorkloadId compares by its printed form).
+    TreeMap<String, Workload> byId = new TreeMap<>();
+    for (Workload w : demand.workloads()) {
+      byId.put(w.id().toString(), w);
+    }
+    List<Workload> workloads = new ArrayList<>(byId.values());
 
     Resources perWorker = in.perWorkerExtra();
     for (Workload w : workloads) {
@@ -159,7 +161,7 @@ public final class Planner {
     long[][] items = rows.toArray(new long[0][]);
     Packing packing = packer.pack(items, capacity);
     int workers = packing.bins();
-    int lowerBound = LowerBound.of(items, capacity);
+    int lowerBound = packing.lowerBound();
 
     OptionalInt hosts =
         in.workersPerHost().isPresent()

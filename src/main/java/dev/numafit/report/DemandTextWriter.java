@@ -4,7 +4,6 @@ import dev.numafit.demand.Workload;
 import dev.numafit.resource.Resources;
 import java.util.List;
 import java.util.Map;
-import java.util.stream.Collectors;
 
 /**
  * {@code demand -o text}: a table of workloads with per-pod requests, a details block per workload
@@ -61,22 +60,19 @@ public final class DemandTextWriter implements ReportWriter<DemandReport> {
 
   static String skippedLine(Map<String, Integer> skipped) {
     int total = skipped.values().stream().mapToInt(i -> i).sum();
-    String kinds =
-        skipped.entrySet().stream()
-            .map(e -> e.getKey() + " " + e.getValue())
-            .collect(Collectors.joining(", "));
-    return TextSupport.wrap(
-        "",
-        "  ",
+    List<String> kinds = new java.util.ArrayList<>();
+    skipped.forEach((k, n) -> kinds.add(k + " " + n));
+    kinds.set(kinds.size() - 1, kinds.get(kinds.size() - 1) + ".");
+    return TextSupport.wrapItems(
         "Skipped "
             + total
             + (total == 1 ? " object" : " objects")
             + " of "
             + skipped.size()
             + (skipped.size() == 1 ? " kind" : " kinds")
-            + " that run no pods: "
-            + kinds
-            + ".");
+            + " that run no pods: ",
+        "  ",
+        kinds);
   }
 
   private static TextTable table(List<Workload> ws) {

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import tools.jackson.core.util.DefaultIndenter;
 import tools.jackson.core.util.DefaultPrettyPrinter;
+import tools.jackson.core.util.Separators;
 import tools.jackson.databind.ObjectWriter;
 import tools.jackson.databind.SerializationFeature;
 import tools.jackson.databind.json.JsonMapper;
@@ -30,7 +31,14 @@ final class JsonSupport {
     WRITER =
         mapper
             .writer()
-            .with(new DefaultPrettyPrinter().withObjectIndenter(lf).withArrayIndenter(lf));
+            .with(
+                new DefaultPrettyPrinter(
+                        Separators.createDefaultInstance()
+                            .withObjectNameValueSpacing(Separators.Spacing.AFTER)
+                            .withObjectEmptySeparator("")
+                            .withArrayEmptySeparator(""))
+                    .withObjectIndenter(lf)
+                    .withArrayIndenter(lf));
   }
 
   private JsonSupport() {}

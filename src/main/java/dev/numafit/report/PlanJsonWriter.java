@@ -2,6 +2,7 @@ package dev.numafit.report;
 
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
+import dev.numafit.plan.PlanComparison;
 import dev.numafit.plan.WorkerPlacement;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
@@ -29,7 +30,7 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
       root.put("comparison", null);
     } else {
       List<Object> rows = new ArrayList<>();
-      for (ComparisonRow r : report.comparison()) {
+      for (PlanComparison.Row r : report.comparison().get().rows()) {
         rows.add(row(r));
       }
       root.put("comparison", rows);
@@ -81,7 +82,7 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
     return m;
   }
 
-  private static Map<String, Object> row(ComparisonRow r) {
+  private static Map<String, Object> row(PlanComparison.Row r) {
     Map<String, Object> m = JsonSupport.object();
     m.put("hostProfile", r.hostProfile().orElse(null));
     m.put("vcpus", r.vcpus());
@@ -92,7 +93,7 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
     m.put("oversizeCount", r.oversizeCount());
     m.put("utilization", fractions(r.utilization()));
     m.put("relativeCost", r.relativeCost().orElse(null));
-    m.put("totalCost", r.totalCost().orElse(null));
+    m.put("totalCost", r.relativeCostTotal().orElse(null));
     return m;
   }
 

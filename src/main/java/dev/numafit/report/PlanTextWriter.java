@@ -2,10 +2,12 @@ package dev.numafit.report;
 
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
+import dev.numafit.plan.PlanComparison;
 import dev.numafit.plan.WorkerPlacement;
 import dev.numafit.shape.WorkerShape;
 import java.math.BigDecimal;
-import java.util.stream.Collectors;
+import java.util.ArrayList;
+import java.util.List;
 
 /**
  * {@code plan -o text}: per plan the worker shape, its allocatable, what every worker carries
@@ -58,37 +60,44 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     sb.append(
         p.hostProfile().map(n -> "Plan for host profile " + n).orElse("Plan for the given worker"))
         .append('\n');
-    TextTable kv = new TextTable("", "");
     WorkerShape w = p.worker();
-    kv.row("Worker", shape(w));
-    kv.row("Allocatable", Units.vector(p.allocatable()));
-    kv.row("On every worker", Units.vector(p.perWorkerDemand()));
-    kv.row("Room for pods", Units.vector(p.room()));
+    kv(sb, "Worker", List.of(shape(w)));
+    kv(sb, "Allocatable", Units.items(p.allocatable()));
+    kv(sb, "On every worker", Units.items(p.perWorkerDemand()));
+    kv(sb, "Room for pods", Units.items(p.room()));
     if (p.workersPerHost().isPresent()) {
-      kv.row("Workers per host", Integer.toString(p.workersPerHost().getAsInt()));
+      kv(sb, "Workers per host", List.of(Integer.toString(p.workersPerHost().getAsInt())));
     }
-    kv.row(
+    kv(
+        sb,
         "Workers needed",
-        p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")");
+        List.of(p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")"));
     if (p.hostsNeeded().isPresent()) {
-      kv.row("Hosts needed", Integer.toString(p.hostsNeeded().getAsInt()));
+      kv(sb, "Hosts needed", List.of(Integer.toString(p.hostsNeeded().getAsInt())));
     }
-    kv.row("Utilization", utilization(p));
-    // The key/value table has no header: drop its first (blank) line.
-    String rendered = kv.render("  ");
-    sb.append(rendered.substring(rendered.indexOf('\n') + 1));
+    List<String> util = new ArrayList<>();
+    p.utilization().forEach((k, v) -> util.add(k + " " + Units.percent(v)));
+    kv(sb, "Utilization", util);
     if (!p.bindingResource().isEmpty()) {
-      sb.append(TextSupport.wrap("  ", "    ", "Runs out first: " + p.bindingResource() + "."));
+      kv(sb, "Runs out first", List.of(p.bindingResource()));
     }
     if (p.oversize().isEmpty()) {
       sb.append("  Oversize pods: none\n");
     } else {
       sb.append("  Oversize pods (not packed; each needs a worker wider than one NUMA node):\n");
-      TextTable o = new TextTable("WORKLOAD", "OVER BY", "SMALLEST SHAPE");
       for (Oversize x : p.oversize()) {
-        o.row(x.workload().toString(), Units.vector(x.exceeds()), shapeLabel(x.smallestShape()));
+        String fits =
+            !x.smallestShape().equals("none")
+                ? "smallest shape that holds it: " + x.smallestShape()
+                : p.hostProfile().isPresent()
+                    ? "larger than a whole host"
+                    : "no larger shape known (give a --host-profile to compare)";
+        sb.append(
+            TextSupport.wrap(
+                "    " + x.workload() + ": ",
+                "      ",
+                "over by " + Units.vector(x.exceeds()) + "; " + fits + "."));
       }
-      sb.append(o.render("    "));
     }
     if (!p.unchecked().isEmpty()) {
       sb.append(
@@ -113,6 +122,16 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     return sb.toString();
   }
 
+  private static final int LABEL = 18;
+
+  /** One {@code label  value} line, the value's items wrapped under each other. */
+  private static void kv(StringBuilder sb, String label, List<String> items) {
+    String first = "  " + label + " ".repeat(LABEL - label.length());
+    sb.append(
+        TextSupport.wrapItems(
+            first, " ".repeat(first.length()), items.isEmpty() ? List.of("none") : items));
+  }
+
   private static String shape(WorkerShape w) {
     String where =
         switch (w.kind()) {
@@ -126,25 +145,12 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     return w.vcpus() + " vCPU, " + Units.bytes(w.memoryBytes()) + " memory (" + where + ")";
   }
 
-  private static String shapeLabel(String s) {
-    return s.equals("none") ? "larger than a whole host" : s;
-  }
-
-  private static String utilization(Plan p) {
-    if (p.utilization().isEmpty()) {
-      return "-";
-    }
-    return p.utilization().entrySet().stream()
-        .map(e -> e.getKey() + " " + Units.percent(e.getValue()))
-        .collect(Collectors.joining(", "));
-  }
-
   private static String comparison(PlanReport report) {
     StringBuilder sb = new StringBuilder("Comparison:\n");
     TextTable t =
         new TextTable(
             "PROFILE", ">VCPU", ">MEMORY", ">PER HOST", ">WORKERS", ">HOSTS", ">OVERSIZE", ">COST");
-    for (ComparisonRow r : report.comparison()) {
+    for (PlanComparison.Row r : report.comparison().get().rows()) {
       t.row(
           r.hostProfile().orElse("(--worker)"),
           Long.toString(r.vcpus()),
@@ -153,14 +159,15 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
           Integer.toString(r.workersNeeded()),
           r.hostsNeeded().isPresent() ? Integer.toString(r.hostsNeeded().getAsInt()) : "-",
           Integer.toString(r.oversizeCount()),
-          r.totalCost().map(BigDecimal::toPlainString).orElse("-"));
+          r.relativeCostTotal().map(BigDecimal::toPlainString).orElse("-"));
     }
     sb.append(t.render("  "));
-    boolean anyCost = report.comparison().stream().anyMatch(r -> r.totalCost().isPresent());
+    boolean anyCost =
+        report.comparison().get().rows().stream()
+            .anyMatch(r -> r.relativeCostTotal().isPresent());
     if (anyCost) {
       sb.append("  COST is the profile's relative cost per host times hosts needed.\n");
     }
     return sb.toString();
   }
-
 }

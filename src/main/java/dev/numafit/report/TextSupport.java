@@ -37,4 +37,29 @@ final class TextSupport {
     out.append(line.toString().stripTrailing()).append('\n');
     return out.toString();
   }
+
+  /**
+   * {@code items} joined by {@code ", "} and wrapped to {@link #WIDTH} columns without breaking an
+   * item, the first line after {@code first}, the rest after {@code next}.
+   */
+  static String wrapItems(String first, String next, java.util.List<String> items) {
+    StringBuilder out = new StringBuilder();
+    StringBuilder line = new StringBuilder(first);
+    boolean lineHasItem = false;
+    for (int i = 0; i < items.size(); i++) {
+      String item = items.get(i) + (i < items.size() - 1 ? "," : "");
+      if (lineHasItem && line.length() + 1 + item.length() > WIDTH) {
+        out.append(line).append('\n');
+        line = new StringBuilder(next);
+        lineHasItem = false;
+      }
+      if (lineHasItem) {
+        line.append(' ');
+      }
+      line.append(item);
+      lineHasItem = true;
+    }
+    out.append(line.toString().stripTrailing()).append('\n');
+    return out.toString();
+  }
 }

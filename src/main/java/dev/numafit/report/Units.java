@@ -77,6 +77,13 @@ public final class Units {
     return sb.toString();
   }
 
+  /** Each amount of a vector as {@code name amount}, sorted by name. */
+  public static java.util.List<String> items(Resources r) {
+    java.util.List<String> out = new java.util.ArrayList<>();
+    r.asMap().forEach((k, v) -> out.add(k + " " + amount(k, v)));
+    return out;
+  }
+
   /** A fraction as a percentage with one decimal: 0.6124 is {@code 61.2%}. */
   public static String percent(double fraction) {
     return BigDecimal.valueOf(fraction * 100).setScale(1, RoundingMode.HALF_UP).toPlainString()

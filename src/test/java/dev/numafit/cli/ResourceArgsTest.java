@@ -63,8 +63,18 @@ class ResourceArgsTest {
   void parseEviction_kubeletSyntaxAndOurs_giveSameAmount() {
     // K11's example threshold memory.available<500Mi, written the kubelet's way and ours.
     Resources expected = Resources.of("memory", 500L * 1024 * 1024);
-    assertEquals(expected, ResourceArgs.parseEviction("memory.available<500Mi"));
-    assertEquals(expected, ResourceArgs.parseEviction("memory.available=500Mi"));
+    assertEquals(expected, ResourceArgs.parseEviction("memory.available<500Mi").amounts());
+    assertEquals(expected, ResourceArgs.parseEviction("memory.available=500Mi").amounts());
+  }
+
+  @Test
+  void parseEviction_percentage_keptAsPercentOfCapacity() {
+    // K11's example threshold nodefs.available<10%: a share of the node's disk.
+    ResourceArgs.Eviction e =
+        ResourceArgs.parseEviction("memory.available<500Mi,nodefs.available<10%");
+    assertEquals(
+        java.util.Map.of("ephemeral-storage", new java.math.BigDecimal("10")), e.percent());
+    assertEquals(Resources.of("memory", 500L * 1024 * 1024), e.amounts());
   }
 
   @Test

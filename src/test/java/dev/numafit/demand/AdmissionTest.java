@@ -73,16 +73,17 @@ class AdmissionTest {
   @Test
   void then_twoLimitRanges_firstWinsPerResource() {
     LimitDefaults a = LimitDefaults.fromItem(map(), map(), map("cpu", milli(500)), map());
-    LimitDefaults b = LimitDefaults.fromItem(map(), map(), map("cpu", milli(900), "memory",
-        mi(64)), map());
+    LimitDefaults b =
+        LimitDefaults.fromItem(map(), map(), map("cpu", milli(900), "memory", mi(64)), map());
     LimitDefaults both = a.then(b);
     assertEquals(map("cpu", milli(500), "memory", mi(64)), both.defaultLimit());
   }
 
   @Test
   void applyOverhead_setsPodFixed() {
-    PodModel p = Admission.applyOverhead(pod(List.of(app("c", map(), map()))),
-        map("cpu", milli(250), "memory", mi(120)));
+    PodModel p =
+        Admission.applyOverhead(
+            pod(List.of(app("c", map(), map()))), map("cpu", milli(250), "memory", mi(120)));
     assertEquals(map("cpu", milli(250), "memory", mi(120)), p.overhead());
   }
 
@@ -90,8 +91,14 @@ class AdmissionTest {
   void limitsAsRequests_podLimitOnlyAndNoContainerRequest_podRequestEqualsLimit() {
     // KEP-2837 (K6b): if only a pod limit is set and no container requests it, the pod request
     // defaults to the pod limit.
-    PodModel p = new PodModel(List.of(), List.of(app("c", map(), map())), map(), map(),
-        map("memory", gi(1)), java.util.Optional.empty());
+    PodModel p =
+        new PodModel(
+            List.of(),
+            List.of(app("c", map(), map())),
+            map(),
+            map(),
+            map("memory", gi(1)),
+            java.util.Optional.empty());
     assertEquals(map("memory", gi(1)), Admission.limitsAsRequests(p).podRequests());
   }
 }

@@ -15,8 +15,8 @@ import net.jqwik.api.constraints.Size;
 /** Invariants of the effective-request arithmetic (KEP-753 formula, FACTS A1). */
 class PodArithmeticProperties {
   private static ContainerSpec cpu(String name, ContainerRole role, int millis) {
-    return new ContainerSpec(name, role, Pods.map("cpu", BigDecimal.valueOf(millis, 3)),
-        Pods.map());
+    return new ContainerSpec(
+        name, role, Pods.map("cpu", BigDecimal.valueOf(millis, 3)), Pods.map());
   }
 
   private static List<ContainerSpec> apps(List<Integer> millis) {
@@ -41,8 +41,8 @@ class PodArithmeticProperties {
       @ForAll @Size(min = 1, max = 5) List<@IntRange(min = 0, max = 100_000) Integer> app,
       @ForAll @Size(max = 5) List<@IntRange(min = 0, max = 100_000) Integer> init,
       @ForAll @Size(max = 5) List<Boolean> sidecar) {
-    long total = PodArithmetic.effective(
-        Pods.pod(inits(init, sidecar), apps(app))).requests().get("cpu");
+    long total =
+        PodArithmetic.effective(Pods.pod(inits(init, sidecar), apps(app))).requests().get("cpu");
     long appSum = app.stream().mapToLong(Integer::longValue).sum();
     long sidecarSum = 0;
     for (int i = 0; i < init.size(); i++) {
@@ -76,9 +76,12 @@ class PodArithmeticProperties {
       @ForAll @Size(min = 1, max = 5) List<@IntRange(min = 0, max = 100_000) Integer> app,
       @ForAll @Size(max = 5) List<@IntRange(min = 0, max = 100_000) Integer> init) {
     // KEP-753 without sidecars: Max(Max(initContainers), Sum(Containers)).
-    long expected = Math.max(app.stream().mapToLong(Integer::longValue).sum(),
-        init.stream().mapToLong(Integer::longValue).max().orElse(0));
-    assertEquals(expected, PodArithmetic.effective(Pods.pod(inits(init, List.of()), apps(app)))
-        .requests().get("cpu"));
+    long expected =
+        Math.max(
+            app.stream().mapToLong(Integer::longValue).sum(),
+            init.stream().mapToLong(Integer::longValue).max().orElse(0));
+    assertEquals(
+        expected,
+        PodArithmetic.effective(Pods.pod(inits(init, List.of()), apps(app))).requests().get("cpu"));
   }
 }

@@ -24,13 +24,16 @@ class PodArithmeticTest {
 
   /** The pod of the "Pod Overhead" docs page: two containers with limits only. */
   private static PodModel overheadDocsPod(boolean withOverhead) {
-    PodModel p = new PodModel(
-        List.of(),
-        List.of(
-            app("busybox-ctr", map(), map("cpu", milli(500), "memory", mi(100))),
-            app("nginx-ctr", map(), map("cpu", milli(1500), "memory", mi(100)))),
-        withOverhead ? map("cpu", milli(250), "memory", mi(120)) : map(),
-        map(), map(), Optional.of("sandboxed"));
+    PodModel p =
+        new PodModel(
+            List.of(),
+            List.of(
+                app("busybox-ctr", map(), map("cpu", milli(500), "memory", mi(100))),
+                app("nginx-ctr", map(), map("cpu", milli(1500), "memory", mi(100)))),
+            withOverhead ? map("cpu", milli(250), "memory", mi(120)) : map(),
+            map(),
+            map(),
+            Optional.of("sandboxed"));
     return Admission.limitsAsRequests(p);
   }
 
@@ -56,11 +59,17 @@ class PodArithmeticTest {
   void effective_twoContainersDocsExample_requests500mAnd128MiLimits1CpuAnd256Mi() {
     // FACTS check value 3, "Resource Management for Pods and Containers" (K5): two containers each
     // requesting 250m/64Mi with limits 500m/128Mi.
-    PodModel p = pod(List.of(
-        app("app", map("cpu", milli(250), "memory", mi(64)),
-            map("cpu", milli(500), "memory", mi(128))),
-        app("log-aggregator", map("cpu", milli(250), "memory", mi(64)),
-            map("cpu", milli(500), "memory", mi(128)))));
+    PodModel p =
+        pod(
+            List.of(
+                app(
+                    "app",
+                    map("cpu", milli(250), "memory", mi(64)),
+                    map("cpu", milli(500), "memory", mi(128))),
+                app(
+                    "log-aggregator",
+                    map("cpu", milli(250), "memory", mi(64)),
+                    map("cpu", milli(500), "memory", mi(128)))));
     EffectivePod e = PodArithmetic.effective(p);
     assertEquals(Resources.of("cpu", 500L, "memory", 128 * MIB), e.requests());
     assertEquals(Resources.of("cpu", 1000L, "memory", 256 * MIB), e.limits());
@@ -72,9 +81,11 @@ class PodArithmeticTest {
     // FACTS check value 13, derived from KEP-753 and helpers.go (K3/K4): init containers
     // [sidecar 800m, init 500m], app 300m: the init container runs beside the sidecar,
     // 500m + 800m = 1300m, more than the steady 300m + 800m.
-    PodModel p = pod(
-        List.of(sidecar("proxy", map("cpu", milli(800))), init("migrate", map("cpu", milli(500)))),
-        List.of(app("web", map("cpu", milli(300)), map())));
+    PodModel p =
+        pod(
+            List.of(
+                sidecar("proxy", map("cpu", milli(800))), init("migrate", map("cpu", milli(500)))),
+            List.of(app("web", map("cpu", milli(300)), map())));
     assertEquals(1300, PodArithmetic.effective(p).requests().get("cpu"));
   }
 
@@ -82,9 +93,11 @@ class PodArithmeticTest {
   void effective_initDeclaredBeforeSidecar_1100m() {
     // FACTS check value 13, swapped: the init container runs alone (500m), so the steady state
     // 300m + 800m = 1100m decides. Order matters (K4).
-    PodModel p = pod(
-        List.of(init("migrate", map("cpu", milli(500))), sidecar("proxy", map("cpu", milli(800)))),
-        List.of(app("web", map("cpu", milli(300)), map())));
+    PodModel p =
+        pod(
+            List.of(
+                init("migrate", map("cpu", milli(500))), sidecar("proxy", map("cpu", milli(800)))),
+            List.of(app("web", map("cpu", milli(300)), map())));
     assertEquals(1100, PodArithmetic.effective(p).requests().get("cpu"));
   }
 
@@ -92,10 +105,13 @@ class PodArithmeticTest {
   void effective_initSidecarInit_1000m() {
     // FACTS check value 14, derived from K3/K4: [init 1000m, sidecar 200m, init 500m], app 300m →
     // max(1000, 200 + 500, 300 + 200) = 1000m.
-    PodModel p = pod(
-        List.of(init("a", map("cpu", milli(1000))), sidecar("s", map("cpu", milli(200))),
-            init("b", map("cpu", milli(500)))),
-        List.of(app("web", map("cpu", milli(300)), map())));
+    PodModel p =
+        pod(
+            List.of(
+                init("a", map("cpu", milli(1000))),
+                sidecar("s", map("cpu", milli(200))),
+                init("b", map("cpu", milli(500)))),
+            List.of(app("web", map("cpu", milli(300)), map())));
     assertEquals(1000, PodArithmetic.effective(p).requests().get("cpu"));
   }
 
@@ -103,8 +119,9 @@ class PodArithmeticTest {
   void effective_limitsOnlyTwoCpus_guaranteedWithTwoExclusiveCpus() {
     // FACTS check value 11, "Resource managers" (K15): a container with only limits cpu "2" and
     // memory 200Mi is Guaranteed and the static policy grants it 2 exclusive CPUs.
-    PodModel p = Admission.limitsAsRequests(
-        pod(List.of(app("c", map(), map("cpu", cores("2"), "memory", mi(200))))));
+    PodModel p =
+        Admission.limitsAsRequests(
+            pod(List.of(app("c", map(), map("cpu", cores("2"), "memory", mi(200))))));
     EffectivePod e = PodArithmetic.effective(p);
     assertEquals(QosClass.GUARANTEED, e.qos());
     assertEquals(2, e.exclusiveCpus());
@@ -114,8 +131,9 @@ class PodArithmeticTest {
   @Test
   void effective_guaranteedFractionalCpu_noExclusiveCpus() {
     // FACTS check value 12 (K15): Guaranteed with cpu 1.5 runs in the shared pool.
-    PodModel p = Admission.limitsAsRequests(
-        pod(List.of(app("c", map(), map("cpu", cores("1.5"), "memory", mi(200))))));
+    PodModel p =
+        Admission.limitsAsRequests(
+            pod(List.of(app("c", map(), map("cpu", cores("1.5"), "memory", mi(200))))));
     EffectivePod e = PodArithmetic.effective(p);
     assertEquals(QosClass.GUARANTEED, e.qos());
     assertEquals(0, e.exclusiveCpus());
@@ -140,8 +158,14 @@ class PodArithmeticTest {
   @Test
   void effective_extendedResourceOnly_bestEffort() {
     // K8: resources other than cpu and memory do not count for QoS.
-    EffectivePod e = PodArithmetic.effective(pod(List.of(
-        app("c", map("example.com/accel", cores("1")), map("example.com/accel", cores("1"))))));
+    EffectivePod e =
+        PodArithmetic.effective(
+            pod(
+                List.of(
+                    app(
+                        "c",
+                        map("example.com/accel", cores("1")),
+                        map("example.com/accel", cores("1"))))));
     assertEquals(QosClass.BEST_EFFORT, e.qos());
     assertEquals(1, e.requests().get("example.com/accel"));
   }
@@ -149,21 +173,32 @@ class PodArithmeticTest {
   @Test
   void effective_containerWithoutLimit_podUnlimitedForThatResource() {
     // "Sidecar Containers" (K2): a resource without a limit is the highest limit.
-    PodModel p = pod(List.of(
-        app("a", map("cpu", milli(100), "memory", mi(10)), map("cpu", milli(200), "memory", mi(20))),
-        app("b", map("cpu", milli(100), "memory", mi(10)), map("memory", mi(20)))));
+    PodModel p =
+        pod(
+            List.of(
+                app(
+                    "a",
+                    map("cpu", milli(100), "memory", mi(10)),
+                    map("cpu", milli(200), "memory", mi(20))),
+                app("b", map("cpu", milli(100), "memory", mi(10)), map("memory", mi(20)))));
     EffectivePod e = PodArithmetic.effective(p);
     assertEquals(Resources.of("memory", 40 * MIB), e.limits());
   }
 
   @Test
   void effective_podLevelRequests_replaceAggregateThenOverheadAdded() {
-    // "Assign Pod-level CPU and memory resources" (K6) and helpers.go (K4): pod-level values replace
+    // "Assign Pod-level CPU and memory resources" (K6) and helpers.go (K4): pod-level values
+    // replace
     // the containers' aggregate; overhead is added after.
-    PodModel p = new PodModel(List.of(),
-        List.of(app("a", map("cpu", milli(100)), map()), app("b", map("cpu", milli(100)), map())),
-        map("cpu", milli(50)), map("cpu", cores("1"), "memory", mi(100)),
-        map("cpu", cores("1"), "memory", mi(100)), Optional.empty());
+    PodModel p =
+        new PodModel(
+            List.of(),
+            List.of(
+                app("a", map("cpu", milli(100)), map()), app("b", map("cpu", milli(100)), map())),
+            map("cpu", milli(50)),
+            map("cpu", cores("1"), "memory", mi(100)),
+            map("cpu", cores("1"), "memory", mi(100)),
+            Optional.empty());
     EffectivePod e = PodArithmetic.effective(p);
     assertEquals(1050, e.requests().get("cpu"));
     assertEquals(100 * MIB, e.requests().get("memory"));
@@ -175,8 +210,9 @@ class PodArithmeticTest {
   @Test
   void effective_cpuFinerThanOneMilli_roundedUpWithFlag() {
     // FACTS check value 5 (Quantity reference, K10): 0.1m rounds up to 1m.
-    EffectivePod e = PodArithmetic.effective(
-        pod(List.of(app("c", map("cpu", milli(1).divide(cores("10"))), map()))));
+    EffectivePod e =
+        PodArithmetic.effective(
+            pod(List.of(app("c", map("cpu", milli(1).divide(cores("10"))), map()))));
     assertEquals(1, e.requests().get("cpu"));
     assertTrue(e.flags().contains(PodArithmetic.CPU_FINER_THAN_1M));
   }
@@ -184,8 +220,12 @@ class PodArithmeticTest {
   @Test
   void effective_memoryFractions_summedExactlyThenRoundedUpOnce() {
     // FACTS A3: memory 400m is 0.4 bytes; two such containers total 0.8 bytes, read as 1 byte.
-    EffectivePod e = PodArithmetic.effective(pod(List.of(
-        app("a", map("memory", cores("0.4")), map()), app("b", map("memory", cores("0.4")), map()))));
+    EffectivePod e =
+        PodArithmetic.effective(
+            pod(
+                List.of(
+                    app("a", map("memory", cores("0.4")), map()),
+                    app("b", map("memory", cores("0.4")), map()))));
     assertEquals(1, e.requests().get("memory"));
   }
 
@@ -193,28 +233,51 @@ class PodArithmeticTest {
   void validate_podLimitBelowContainerLimits_invalid() {
     // FACTS check value 15 (KEP-2837, K6b): a 100Gi pod limit with two containers limited to 60Gi
     // is invalid (their requests, defaulted from the limits, sum to 120Gi).
-    PodModel p = Admission.limitsAsRequests(new PodModel(List.of(),
-        List.of(app("a", map(), map("memory", gi(60))), app("b", map(), map("memory", gi(60)))),
-        map(), map(), map("memory", gi(100)), Optional.empty()));
+    PodModel p =
+        Admission.limitsAsRequests(
+            new PodModel(
+                List.of(),
+                List.of(
+                    app("a", map(), map("memory", gi(60))), app("b", map(), map("memory", gi(60)))),
+                map(),
+                map(),
+                map("memory", gi(100)),
+                Optional.empty()));
     List<String> problems = PodArithmetic.validate(p);
-    assertTrue(problems.contains("pod-level memory limit 100Gi is below the containers' requests"
-        + " 120Gi"), problems.toString());
+    assertTrue(
+        problems.contains(
+            "pod-level memory limit 100Gi is below the containers' requests" + " 120Gi"),
+        problems.toString());
   }
 
   @Test
   void validate_hugepagesRequestDiffersFromLimit_invalid() {
     // FACTS check value 26 ("Manage HugePages", K17): a hugepages request must equal its limit.
-    PodModel p = pod(List.of(app("c", map("hugepages-2Mi", mi(80), "memory", mi(10)),
-        map("hugepages-2Mi", mi(100), "memory", mi(10)))));
-    assertEquals(List.of("container \"c\": hugepages-2Mi request 80Mi must equal its limit 100Mi"
-        + " (hugepages cannot be overcommitted)"), PodArithmetic.validate(p));
+    PodModel p =
+        pod(
+            List.of(
+                app(
+                    "c",
+                    map("hugepages-2Mi", mi(80), "memory", mi(10)),
+                    map("hugepages-2Mi", mi(100), "memory", mi(10)))));
+    assertEquals(
+        List.of(
+            "container \"c\": hugepages-2Mi request 80Mi must equal its limit 100Mi"
+                + " (hugepages cannot be overcommitted)"),
+        PodArithmetic.validate(p));
   }
 
   @Test
   void validate_hugepagesLimitOnly_validAfterDefaulting() {
     // K17: if only a limit is set, the request defaults to it.
-    PodModel p = Admission.limitsAsRequests(pod(List.of(app("c", map("memory", mi(10)),
-        map("hugepages-2Mi", mi(80), "memory", mi(10))))));
+    PodModel p =
+        Admission.limitsAsRequests(
+            pod(
+                List.of(
+                    app(
+                        "c",
+                        map("memory", mi(10)),
+                        map("hugepages-2Mi", mi(80), "memory", mi(10))))));
     assertEquals(List.of(), PodArithmetic.validate(p));
     assertEquals(80 * MIB, PodArithmetic.effective(p).requests().get("hugepages-2Mi"));
   }
@@ -230,7 +293,7 @@ class PodArithmeticTest {
   @Test
   void validate_requestAboveLimit_invalid() {
     PodModel p = pod(List.of(app("c", map("cpu", cores("2")), map("cpu", cores("1")))));
-    assertEquals(List.of("container \"c\": cpu request 2 is above its limit 1"),
-        PodArithmetic.validate(p));
+    assertEquals(
+        List.of("container \"c\": cpu request 2 is above its limit 1"), PodArithmetic.validate(p));
   }
 }

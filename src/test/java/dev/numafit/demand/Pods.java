@@ -37,8 +37,8 @@ final class Pods {
     return m;
   }
 
-  static ContainerSpec app(String name, SortedMap<String, BigDecimal> req,
-      SortedMap<String, BigDecimal> lim) {
+  static ContainerSpec app(
+      String name, SortedMap<String, BigDecimal> req, SortedMap<String, BigDecimal> lim) {
     return new ContainerSpec(name, ContainerRole.APP, req, lim);
   }
 

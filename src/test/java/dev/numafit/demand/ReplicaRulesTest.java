@@ -31,7 +31,8 @@ class ReplicaRulesTest {
 
   @Test
   void autoscaled_peak_maxReplicasNamingAutoscaler() {
-    Replicas r = ReplicaRules.autoscaled(ReplicaRules.scalable(2), 10, "shop/web", ReplicaMode.PEAK);
+    Replicas r =
+        ReplicaRules.autoscaled(ReplicaRules.scalable(2), 10, "shop/web", ReplicaMode.PEAK);
     assertEquals(new Replicas(2, 10, "HorizontalPodAutoscaler shop/web maxReplicas"), r);
   }
 

@@ -10,6 +10,7 @@ import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
+import dev.numafit.plan.PlanComparison;
 import dev.numafit.plan.WorkerPlacement;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.ShapeKind;
@@ -155,9 +156,7 @@ final class ReportFixtures {
     return new PlanReport(
         demand(),
         List.of(a, b),
-        List.of(
-            ComparisonRow.of(a, Optional.of(new BigDecimal("1.5"))),
-            ComparisonRow.of(b, Optional.empty())),
+        Optional.of(PlanComparison.of(List.of(a, b), Map.of("two-socket", new BigDecimal("1.5")))),
         demand().diagnostics());
   }
 }

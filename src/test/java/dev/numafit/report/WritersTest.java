@@ -36,7 +36,8 @@ class WritersTest {
     assertTrue(text.contains("  Utilization       cpu 41.2%, memory 10.0%, pods 6.7%\n"), text);
     assertTrue(
         text.contains(
-            "    parcel/Deployment/route-optimizer  cpu 8320m, memory 76GiB  2-nodes\n"),
+            "    parcel/Deployment/route-optimizer: over by cpu 8320m, memory 76GiB; smallest\n"
+                + "      shape that holds it: 2-nodes.\n"),
         text);
     assertTrue(text.contains("  Not checked: ephemeral-storage, no capacity given.\n"), text);
     assertTrue(text.contains("Plan for the given worker\n"), text);
@@ -79,7 +80,8 @@ class WritersTest {
   void planJson_singlePlan_hasNullComparison() {
     PlanReport r =
         new PlanReport(
-            ReportFixtures.demand(), List.of(ReportFixtures.workerPlan()), List.of(), List.of());
+            ReportFixtures.demand(), List.of(ReportFixtures.workerPlan()), Optional.empty(),
+            List.of());
     JsonNode root = JSON.readTree(new PlanJsonWriter().render(r));
     assertTrue(root.get("comparison").isNull());
     assertEquals(0, root.get("warnings").size());
@@ -128,16 +130,6 @@ class WritersTest {
     assertEquals(new PlanJsonWriter().render(r), new PlanJsonWriter().render(r));
     assertEquals(new PlanTextWriter().render(r), new PlanTextWriter().render(r));
     assertFalse(new PlanJsonWriter().render(r).contains("\r"));
-  }
-
-  @Test
-  void comparisonRow_costTimesHosts_onlyWithBoth() {
-    ComparisonRow host = ComparisonRow.of(ReportFixtures.hostPlan(false),
-        Optional.of(new java.math.BigDecimal("2")));
-    assertEquals("4", host.totalCost().orElseThrow().toPlainString());
-    ComparisonRow bare = ComparisonRow.of(ReportFixtures.workerPlan(),
-        Optional.of(new java.math.BigDecimal("2")));
-    assertTrue(bare.totalCost().isEmpty());
   }
 
   static void assertKeysSorted(JsonNode n) {
