@@ -20,6 +20,7 @@ import picocli.CommandLine.Spec;
       DemandCommand.class,
       PlanCommand.class,
       SnapshotCommand.class,
+      ReviewCommand.class,
       CompletionCommand.class,
       ProfileCommand.class,
       CommandLine.HelpCommand.class

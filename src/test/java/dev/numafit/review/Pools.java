@@ -17,23 +17,23 @@ import java.util.OptionalInt;
 import java.util.TreeMap;
 
 /** Small cluster models for the review tests (invented scenarios of a made-up web shop). */
-final class Pools {
-  static final long GI = 1L << 30;
-  static final long MI = 1L << 20;
+public final class Pools {
+  public static final long GI = 1L << 30;
+  public static final long MI = 1L << 20;
 
-  final List<NodeRecord> nodes = new ArrayList<>();
-  final List<PodRecord> pods = new ArrayList<>();
-  final List<BudgetRecord> budgets = new ArrayList<>();
-  Optional<String> namespace = Optional.empty();
+  public final List<NodeRecord> nodes = new ArrayList<>();
+  public final List<PodRecord> pods = new ArrayList<>();
+  public final List<BudgetRecord> budgets = new ArrayList<>();
+  public Optional<String> namespace = Optional.empty();
 
-  Pools node(String name, long cpuMillis, long memory) {
+  public Pools node(String name, long cpuMillis, long memory) {
     Resources r = Resources.of("cpu", cpuMillis, "memory", memory, "pods", 110L);
     nodes.add(new NodeRecord(name, r, r, new TreeMap<>(Map.of("pool", "general",
         "kubernetes.io/hostname", name)), List.of(), false));
     return this;
   }
 
-  Pools pods(String workload, int count, long cpuMillis, long memory, String node,
+  public Pools pods(String workload, int count, long cpuMillis, long memory, String node,
       String... budgets) {
     WorkloadId id = new WorkloadId("shop", "Deployment", workload);
     for (int i = 0; i < count; i++) {
@@ -45,7 +45,7 @@ final class Pools {
     return this;
   }
 
-  Pools daemonOnEveryNode(long cpuMillis, long memory) {
+  public Pools daemonOnEveryNode(long cpuMillis, long memory) {
     WorkloadId id = new WorkloadId("infra", "DaemonSet", "log-shipper");
     for (NodeRecord n : List.copyOf(nodes)) {
       pods.add(new PodRecord("infra", "log-shipper-" + n.name(), id, n.name(), "Running",
@@ -54,19 +54,19 @@ final class Pools {
     return this;
   }
 
-  Pools budget(String name, String minAvailable, String maxUnavailable) {
+  public Pools budget(String name, String minAvailable, String maxUnavailable) {
     budgets.add(new BudgetRecord("shop", name,
         Optional.ofNullable(minAvailable).map(IntOrPercent::parse),
         Optional.ofNullable(maxUnavailable).map(IntOrPercent::parse)));
     return this;
   }
 
-  ClusterModel model() {
+  public ClusterModel model() {
     return new ClusterModel("https://203.0.113.10:6443", namespace, nodes, pods, budgets,
         List.of(), List.of(), List.of());
   }
 
-  static ResizeRequest resize(int nodes) {
+  public static ResizeRequest resize(int nodes) {
     return new ResizeRequest("pool", "general", OptionalInt.of(nodes), Optional.empty(),
         Optional.empty(), Optional.empty(), 0, Optional.empty(), 2, DemandSource.RUNNING,
         ReplicaMode.PEAK);

@@ -13,7 +13,7 @@ import java.util.Optional;
 import java.util.OptionalInt;
 import org.junit.jupiter.api.Test;
 
-class ReviewerTest {
+public class ReviewerTest {
   /**
    * Ten 4-CPU workers: w01–w07 each run two storefront pods of 1950m, w08–w10 one ledger pod of
    * 2000m, every node a 100m log shipper. Free CPU is then 0 on w01–w07 and 1900m on w08–w10,
@@ -21,7 +21,7 @@ class ReviewerTest {
    * removals strand exactly the pods of the removed nodes, and the plan strands the fewest (one
    * per ledger node against two per storefront node).
    */
-  static Pools tenWorkers() {
+  public static Pools tenWorkers() {
     Pools p = new Pools();
     for (int i = 1; i <= 10; i++) {
       p.node(String.format("w%02d", i), 4000, 16 * GI);
