@@ -349,7 +349,9 @@ public final class Reviewer {
           candidates.add(n);
         }
       }
-      candidates.sort(Comparator.<PoolState.Node>comparingLong(n -> movable(n).size())
+      Map<PoolState.Node, Integer> moves = new java.util.IdentityHashMap<>();
+      candidates.forEach(n -> moves.put(n, movable(n).size()));
+      candidates.sort(Comparator.<PoolState.Node>comparingInt(moves::get)
           .thenComparing(n -> n.name));
       PoolState.Node chosen = null;
       int bestStranded = Integer.MAX_VALUE;
@@ -484,7 +486,9 @@ public final class Reviewer {
         }
       }
       rounds.add(round.stream().map(PodItem::id).toList());
-      remaining.removeAll(round);
+      Set<PodItem> inRound = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
+      inRound.addAll(round);
+      remaining.removeIf(inRound::contains);
     }
     List<DrainPlan.Blocked> blocked = new ArrayList<>();
     for (PodItem p : remaining) {

@@ -7,6 +7,12 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.numafit.cluster.model.ClusterModel;
+import dev.numafit.cluster.model.Placement;
+import dev.numafit.cluster.model.WorkloadRecord;
+import dev.numafit.demand.ReplicaMode;
+import dev.numafit.demand.Replicas;
+import dev.numafit.demand.WorkloadId;
 import dev.numafit.resource.Resources;
 import java.util.List;
 import java.util.Optional;
@@ -161,5 +167,56 @@ public class ReviewerTest {
     assertEquals(List.of("w01..w02"), h.hostsLost());
     assertEquals(4, h.pending().size());
     assertFalse(r.fits());
+  }
+
+  /**
+   * Ten empty 4-CPU workers with a 100m log shipper each (3900m of room): a node holds two
+   * storefront pods (2 × 1950m) or one ledger pod (2000m + 1950m would be 3950m). Declared,
+   * storefront runs 14 replicas and peaks at 20 under its autoscaler; ledger runs 3.
+   */
+  static ClusterModel declared() {
+    Pools p = new Pools();
+    for (int i = 1; i <= 10; i++) {
+      p.node(String.format("w%02d", i), 4000, 16 * GI);
+    }
+    List<WorkloadRecord> ws = List.of(
+        new WorkloadRecord(new WorkloadId("shop", "Deployment", "storefront"),
+            new Replicas(14, 20, "HorizontalPodAutoscaler storefront maxReplicas"), false,
+            Resources.of("cpu", 1950L, "memory", GI), Placement.NONE),
+        new WorkloadRecord(new WorkloadId("shop", "Deployment", "ledger"),
+            new Replicas(3, 3, "spec.replicas"), false,
+            Resources.of("cpu", 2000L, "memory", 2 * GI), Placement.NONE),
+        new WorkloadRecord(new WorkloadId("infra", "DaemonSet", "log-shipper"),
+            new Replicas(1, 1, "one per node"), true,
+            Resources.of("cpu", 100L, "memory", 128 * MI), Placement.NONE));
+    ClusterModel m = p.model();
+    return new ClusterModel(m.server(), m.namespace(), m.nodes(), m.pods(), m.budgets(), ws,
+        List.of(), List.of());
+  }
+
+  private static ResizeRequest declaredRequest(ReplicaMode mode) {
+    return new ResizeRequest("pool", "general", OptionalInt.empty(), Optional.empty(),
+        Optional.empty(), Optional.empty(), 0, Optional.empty(), 2, DemandSource.DECLARED, mode);
+  }
+
+  @Test
+  void review_declaredReplicas_fitsThreeLedgerAndSevenStorefrontNodes() {
+    Review r = new Reviewer().review(declared(), declaredRequest(ReplicaMode.DECLARED));
+    assertTrue(r.fits(), r.pending().toString());
+    assertEquals(17, r.podsConsidered());
+  }
+
+  @Test
+  void review_declaredPeak_sixStorefrontPodsPendingWithIndexedIds() {
+    Review r = new Reviewer().review(declared(), declaredRequest(ReplicaMode.PEAK));
+    assertFalse(r.fits());
+    // 3 ledger nodes leave 7 × 2 = 14 storefront slots for 20 pods: 6 pending. Placed in size
+    // order, then by id (…#19, #2, #3, #4 … #9), the last six are #4 to #9.
+    assertEquals(List.of("shop/Deployment/storefront#4", "shop/Deployment/storefront#5",
+        "shop/Deployment/storefront#6", "shop/Deployment/storefront#7",
+        "shop/Deployment/storefront#8", "shop/Deployment/storefront#9"),
+        r.pending().stream().map(PendingPod::pod).toList());
+    assertEquals("0/10 nodes are available: 10 Insufficient cpu.", r.pending().get(0).reason());
+    assertTrue(r.drain().rounds().isEmpty(), "nothing is drained when placing declared pods");
   }
 }
