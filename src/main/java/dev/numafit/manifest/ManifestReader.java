@@ -79,7 +79,7 @@ public final class ManifestReader {
    *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
    */
   public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
-    Session s = new Session(opts);
+    Reading s = new Reading(opts);
     boolean stdinRead = false;
     for (String path : paths) {
       if ("-".equals(path)) {
@@ -119,12 +119,12 @@ public final class ManifestReader {
       int maxReplicas,
       SourceRef source) {}
 
-  private record NamedLimits(String name, LimitDefaults defaults) {}
+  private record NamedLimits(String name, LimitDefaults defaults, SourceRef source) {}
 
   private record Overhead(SortedMap<String, BigDecimal> podFixed, SourceRef source) {}
 
   /** State of one {@link #read} call. */
-  private final class Session {
+  private final class Reading {
     final ReadOptions opts;
     final List<Diagnostic> diags = new ArrayList<>();
     final Map<String, SourceRef> seen = new LinkedHashMap<>();
@@ -136,7 +136,7 @@ public final class ManifestReader {
     final Map<String, String> skipped = new LinkedHashMap<>();
     int unnamed;
 
-    Session(ReadOptions opts) {
+    Reading(ReadOptions opts) {
       this.opts = opts;
     }
 
@@ -309,14 +309,14 @@ public final class ManifestReader {
     void object(LocatedDocument doc, String ptr, JsonNode node, String kind) {
       String apiVersion = text(node.get("apiVersion"));
       JsonNode meta = node.path("metadata");
-      String namespace = text(meta.get("namespace"));
+      String namespace = scalar(meta.get("namespace"));
       if (namespace == null || namespace.isBlank()) {
         namespace = "default";
       }
-      String name = text(meta.get("name"));
+      String name = scalar(meta.get("name"));
       boolean named = name != null && !name.isBlank();
       if (!named) {
-        String generate = text(meta.get("generateName"));
+        String generate = scalar(meta.get("generateName"));
         name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
       }
       WorkloadId id = new WorkloadId(namespace, kind, name);
@@ -600,7 +600,7 @@ public final class ManifestReader {
           if (ctx.errors.isEmpty()) {
             limitRanges
                 .computeIfAbsent(id.namespace(), n -> new TreeMap<>())
-                .put(key, new NamedLimits(id.name(), d));
+                .put(key, new NamedLimits(id.name(), d, source));
           }
         }
         case RUNTIME_CLASS -> {
@@ -731,6 +731,15 @@ public final class ManifestReader {
           if (de instanceof MismatchedInputException m) {
             target = m.getTargetType();
           }
+          Throwable root = de;
+          while (root.getCause() != null) {
+            root = root.getCause();
+          }
+          // fabric8's Quantity deserializer rejects some forms (1e3m, 1K) with a bare message.
+          String rootMessage = String.valueOf(root.getMessage()).toLowerCase(Locale.ROOT);
+          if (target == null && rootMessage.contains("quantity")) {
+            target = io.fabric8.kubernetes.api.model.Quantity.class;
+          }
         }
         String field = dotted.length() == 0 ? "object" : dotted.toString();
         JsonNode value = ctx.doc.at(pointer.toString());
@@ -754,8 +763,27 @@ public final class ManifestReader {
             List<NamedLimits> sorted = new ArrayList<>(byKey.values());
             sorted.sort((a, b) -> a.name().compareTo(b.name()));
             LimitDefaults d = LimitDefaults.NONE;
+            List<NamedLimits> withDefaults = new ArrayList<>();
             for (NamedLimits n : sorted) {
               d = d.then(n.defaults());
+              if (!n.defaults().isEmpty()) {
+                withDefaults.add(n);
+              }
+            }
+            if (withDefaults.size() > 1) {
+              // "Limit Ranges": with two or more, which default applies is not deterministic.
+              NamedLimits first = withDefaults.get(0);
+              diags.add(
+                  Diagnostic.warning(
+                      first.source(),
+                      "namespace "
+                          + ns
+                          + " has "
+                          + withDefaults.size()
+                          + " LimitRanges with container defaults; Kubernetes applies them in no"
+                          + " fixed order, so the first by name ("
+                          + first.name()
+                          + ") wins here for each resource it sets"));
             }
             defaults.put(ns, d);
           });
@@ -902,6 +930,11 @@ public final class ManifestReader {
 
   private static String text(JsonNode n) {
     return n != null && n.isString() ? n.asString() : null;
+  }
+
+  /** A string or number as text ({@code name: 123} names an object "123"), else null. */
+  private static String scalar(JsonNode n) {
+    return n != null && (n.isString() || n.isNumber()) ? n.asString() : null;
   }
 
   /**
