@@ -20,6 +20,8 @@ import picocli.CommandLine.Spec;
       DemandCommand.class,
       PlanCommand.class,
       CheckCommand.class,
+      SnapshotCommand.class,
+      ReviewCommand.class,
       CompletionCommand.class,
       ProfileCommand.class,
       CommandLine.HelpCommand.class
