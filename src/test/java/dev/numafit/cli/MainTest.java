@@ -52,7 +52,7 @@ class MainTest {
     CliRun r = CliRun.of();
     assertEquals(2, r.code());
     assertEquals(
-        "error: missing command (expected one of: demand, plan, completion, profile, help)\n"
+        "error: missing command (expected one of: demand, plan, check, snapshot, review, completion, profile, help)\n"
             + "Run 'numafit --help' for usage.\n",
         r.err());
     assertEquals("", r.out());
