@@ -60,7 +60,7 @@ final class CheckRun {
     ReadOptions read = new ReadOptions(
         po.replicas(),
         po.includeCustom());
-    ManifestReader reader = new ManifestReader();
+    ManifestReader reader = new ManifestReader(console.maxDocumentChars());
     ManifestRead head = reader.readLocated(po.files(), console.in(), read);
     Optional<ManifestRead> base = Optional.empty();
     if (!s.baseline().isEmpty()) {

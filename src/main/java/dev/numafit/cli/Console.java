@@ -2,6 +2,7 @@ package dev.numafit.cli;
 
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.Severity;
+import dev.numafit.manifest.ManifestReader;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.nio.file.Path;
@@ -12,16 +13,36 @@ import java.util.Objects;
  * CLI with byte buffers.
  *
  * @param workingDir the folder {@code numafit.yaml} is looked for in
+ * @param maxDocumentChars longest manifest document read, in characters ({@code
+ *     --max-document-size})
  * @param colour whether diagnostics on standard error may use ANSI colour (stderr is a terminal and
  *     NO_COLOR is unset)
  */
 record Console(
-    InputStream in, PrintStream out, PrintStream err, Path workingDir, boolean colour) {
+    InputStream in,
+    PrintStream out,
+    PrintStream err,
+    Path workingDir,
+    boolean colour,
+    int maxDocumentChars) {
   Console {
     Objects.requireNonNull(in, "in");
     Objects.requireNonNull(out, "out");
     Objects.requireNonNull(err, "err");
     Objects.requireNonNull(workingDir, "workingDir");
+    if (maxDocumentChars <= 0) {
+      throw new IllegalArgumentException("maxDocumentChars must be positive");
+    }
+  }
+
+  /** A console with the default manifest document size limit. */
+  Console(InputStream in, PrintStream out, PrintStream err, Path workingDir, boolean colour) {
+    this(in, out, err, workingDir, colour, ManifestReader.DEFAULT_MAX_DOCUMENT_CHARS);
+  }
+
+  /** This console with another limit for one YAML document or JSON value, in characters. */
+  Console withMaxDocumentChars(int chars) {
+    return new Console(in, out, err, workingDir, colour, chars);
   }
 
   /** Prints one diagnostic as {@code file:line: severity: message} on standard error. */

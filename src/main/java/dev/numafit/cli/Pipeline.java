@@ -194,7 +194,8 @@ final class Pipeline {
 
   private static Demand readDemand(
       List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
-    return new ManifestReader().read(files, console.in(), new ReadOptions(replicas, includeCustom));
+    return new ManifestReader(console.maxDocumentChars())
+        .read(files, console.in(), new ReadOptions(replicas, includeCustom));
   }
 
   /**

@@ -72,7 +72,29 @@ public final class ManifestReader {
   // Shared: its deserializer cache is costly to build and safe to use from any thread.
   private static final KubernetesSerialization K8S = new KubernetesSerialization();
   private final KubernetesSerialization k8s = K8S;
-  private final DocumentReader documents = new DocumentReader();
+  private final DocumentReader documents;
+
+  /**
+   * Longest YAML document or JSON value read by default, in characters (8 Mi): far above any
+   * manifest people write, low enough that a runaway input fails fast in bounded memory.
+   */
+  public static final int DEFAULT_MAX_DOCUMENT_CHARS = 8 << 20;
+
+  /** A reader with the default limits. */
+  public ManifestReader() {
+    this(DEFAULT_MAX_DOCUMENT_CHARS);
+  }
+
+  /**
+   * A reader that accepts YAML documents and JSON values up to {@code maxDocumentChars}
+   * characters (nesting depth and YAML aliases keep their fixed limits).
+   */
+  public ManifestReader(int maxDocumentChars) {
+    if (maxDocumentChars <= 0) {
+      throw new IllegalArgumentException("maxDocumentChars must be positive");
+    }
+    this.documents = new DocumentReader(maxDocumentChars);
+  }
 
   /**
    * Reads every path in order.
@@ -269,14 +291,16 @@ public final class ManifestReader {
 
     void readFile(Path p, String shown) {
       String text;
+      byte[] bytes = null;
       try {
-        byte[] bytes = Files.readAllBytes(p);
-        text =
-            StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+        bytes = Files.readAllBytes(p);
+        text = decode(bytes);
       } catch (CharacterCodingException e) {
         diags.add(
             Diagnostic.error(
-                new SourceRef(shown, 0), "not UTF-8 text (expected a YAML or JSON manifest)"));
+                new SourceRef(shown, firstBadLine(bytes)),
+                "not UTF-8 text (expected a YAML or JSON manifest in UTF-8, or UTF-16 with a"
+                    + " byte order mark)"));
         return;
       } catch (IOException e) {
         diags.add(Diagnostic.error(new SourceRef(shown, 0), "cannot read: " + e.getMessage()));
@@ -284,6 +308,33 @@ public final class ManifestReader {
       }
       boolean json = shown.toLowerCase(Locale.ROOT).endsWith(".json");
       readText(shown, text, json);
+    }
+
+    /**
+     * UTF-8 text, or UTF-16 when the bytes start with its byte order mark (YAML 1.2 allows both;
+     * some editors on one desktop system save UTF-16).
+     */
+    private String decode(byte[] bytes) throws CharacterCodingException {
+      boolean utf16 =
+          bytes.length >= 2
+              && ((bytes[0] == (byte) 0xFE && bytes[1] == (byte) 0xFF)
+                  || (bytes[0] == (byte) 0xFF && bytes[1] == (byte) 0xFE));
+      java.nio.charset.Charset cs = utf16 ? StandardCharsets.UTF_16 : StandardCharsets.UTF_8;
+      return cs.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+    }
+
+    /** The 1-based line of the first byte that is not UTF-8. */
+    private int firstBadLine(byte[] bytes) {
+      java.nio.ByteBuffer in = java.nio.ByteBuffer.wrap(bytes);
+      java.nio.CharBuffer out = java.nio.CharBuffer.allocate(bytes.length + 1);
+      StandardCharsets.UTF_8.newDecoder().decode(in, out, true);
+      int line = 1;
+      for (int i = 0; i < in.position(); i++) {
+        if (bytes[i] == '\n') {
+          line++;
+        }
+      }
+      return line;
     }
 
     void readText(String file, String text, boolean json) {
@@ -376,13 +427,25 @@ public final class ManifestReader {
       }
       String name = scalar(meta.get("name"));
       boolean named = name != null && !name.isBlank();
+      boolean generated = false;
       if (!named) {
         String generate = scalar(meta.get("generateName"));
-        name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
+        generated = generate != null && !generate.isBlank();
+        name = generated ? generate + "*" : "(unnamed)";
       }
       WorkloadId id = new WorkloadId(namespace, kind, name);
       int kindLine = doc.lines().getOrDefault(ptr + "/kind", doc.line(ptr));
       SourceRef source = new SourceRef(doc.file(), kindLine);
+      if (!named && !generated) {
+        // The API server rejects an object without a name; size it all the same, but say so.
+        diags.add(
+            Diagnostic.warning(
+                source,
+                id
+                    + ": no metadata.name (expected metadata.name or metadata.generateName);"
+                    + " read as "
+                    + name));
+      }
       String key = named ? id.toString() : id + "@" + source + "#" + (unnamed++);
       ObjectContext ctx = new ObjectContext(doc, id.toString());
 
