@@ -55,8 +55,9 @@ public final class NumafitCommand implements Callable<Integer> {
       paramLabel = "SIZE",
       converter = DocumentSizeConverter.class,
       description =
-          "Longest YAML document or JSON value read from a manifest, in characters (Ki, Mi"
-              + " suffixes allowed; default 8Mi). Raise it for very large inputs.")
+          "Largest manifest file, standard input, YAML document or JSON value read, in"
+              + " characters (Ki, Mi suffixes allowed; default 32Mi). Raise it for very large"
+              + " inputs.")
   int maxDocumentChars = ManifestReader.DEFAULT_MAX_DOCUMENT_CHARS;
 
   Console console() {

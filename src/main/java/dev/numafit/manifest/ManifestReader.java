@@ -73,12 +73,14 @@ public final class ManifestReader {
   private static final KubernetesSerialization K8S = new KubernetesSerialization();
   private final KubernetesSerialization k8s = K8S;
   private final DocumentReader documents;
+  private final int maxChars;
 
   /**
-   * Longest YAML document or JSON value read by default, in characters (8 Mi): far above any
-   * manifest people write, low enough that a runaway input fails fast in bounded memory.
+   * Largest input read by default, in characters, for one file (or standard input) and for one
+   * YAML document or JSON value in it (32 Mi): above the manifests people render, low enough that
+   * a runaway input is refused before it is read, in bounded memory.
    */
-  public static final int DEFAULT_MAX_DOCUMENT_CHARS = 8 << 20;
+  public static final int DEFAULT_MAX_DOCUMENT_CHARS = 32 << 20;
 
   /** A reader with the default limits. */
   public ManifestReader() {
@@ -94,6 +96,17 @@ public final class ManifestReader {
       throw new IllegalArgumentException("maxDocumentChars must be positive");
     }
     this.documents = new DocumentReader(maxDocumentChars);
+    this.maxChars = maxDocumentChars;
+  }
+
+  private String tooLarge(String what, long size) {
+    return what
+        + " "
+        + size
+        + " bytes, more than numafit reads from one input ("
+        + maxChars
+        + " characters); raise the limit with --max-document-size if the input is meant to be"
+        + " this large";
   }
 
   /**
@@ -226,7 +239,14 @@ public final class ManifestReader {
     void readStdin(InputStream in) {
       String text;
       try {
-        text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        byte[] bytes = in.readNBytes(maxChars + 1);
+        if (bytes.length > maxChars) {
+          diags.add(
+              Diagnostic.error(
+                  new SourceRef(STDIN, 1), tooLarge("standard input is over", maxChars)));
+          return;
+        }
+        text = new String(bytes, StandardCharsets.UTF_8);
       } catch (IOException e) {
         diags.add(
             Diagnostic.error(
@@ -293,6 +313,12 @@ public final class ManifestReader {
       String text;
       byte[] bytes = null;
       try {
+        long size = Files.size(p);
+        if (size > maxChars) {
+          // Refused before reading: a runaway file must not fill the heap.
+          diags.add(Diagnostic.error(new SourceRef(shown, 1), tooLarge("this file is", size)));
+          return;
+        }
         bytes = Files.readAllBytes(p);
         text = decode(bytes);
       } catch (CharacterCodingException e) {
