@@ -18,11 +18,13 @@ import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.DemandJsonWriter;
 import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.Allocatable;
@@ -79,6 +81,9 @@ final class Pipeline {
     List<Plan> plans = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
+    TreeMap<String, PlanHost> hosts = new TreeMap<>();
+    // The fill charts need to know which pods share a worker.
+    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -129,11 +134,12 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               notes,
               planWarnings);
       plans.add(planner.plan(demand, in));
       shapes.add(shape);
+      hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
     if (o.hostProfiles().isEmpty()) {
       WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
@@ -151,7 +157,7 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
               planWarnings);
       plans.add(planner.plan(demand, in));
@@ -165,12 +171,16 @@ final class Pipeline {
     }
     Optional<PlanComparison> comparison =
         plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, hosts);
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
     ReportWriter<PlanReport> writer =
-        o.format() == ReportFormat.JSON ? new PlanJsonWriter() : new PlanTextWriter();
+        switch (o.format()) {
+          case JSON -> new PlanJsonWriter();
+          case HTML -> new PlanHtmlWriter();
+          case TEXT -> new PlanTextWriter();
+        };
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
