@@ -2,6 +2,7 @@ package dev.numafit.manifest;
 
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
+import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -34,6 +35,9 @@ final class DocumentReader {
   private final JsonMapper json =
       JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
 
+  /** A key given twice in one mapping, where the second one is. */
+  private record DuplicateKey(int line, String name) {}
+
   /** What reading one file produced besides its documents. */
   static final class Outcome {
     int emptyDocuments;
@@ -65,7 +69,14 @@ final class DocumentReader {
             continue;
           }
           Map<String, Integer> positions = new HashMap<>();
-          JsonNode root = build(p, t, "", positions, offset, new HashMap<>());
+          List<DuplicateKey> duplicates = new ArrayList<>();
+          JsonNode root = build(p, t, "", positions, offset, new HashMap<>(), duplicates);
+          for (DuplicateKey d : duplicates) {
+            diagnostics.add(
+                Diagnostic.warning(
+                    new SourceRef(file, d.line()),
+                    "duplicate key \"" + d.name() + "\" in one mapping; the later value is used"));
+          }
           sink.accept(new LocatedDocument(file, root, positions, start));
         }
       } catch (JacksonException e) {
@@ -103,7 +114,8 @@ final class DocumentReader {
       String pointer,
       Map<String, Integer> positions,
       int offset,
-      Map<String, JsonNode> anchors) {
+      Map<String, JsonNode> anchors,
+      List<DuplicateKey> duplicates) {
     positions.put(pointer, offset + line(p.currentTokenLocation()));
     if (p instanceof YAMLParser y && t == JsonToken.VALUE_STRING && y.isCurrentAlias()) {
       // An alias (*name) repeats the node anchored as &name earlier in the document.
@@ -113,7 +125,7 @@ final class DocumentReader {
       }
     }
     Object anchor = p.getObjectId();
-    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors);
+    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors, duplicates);
     if (anchor != null) {
       anchors.put(anchor.toString(), node);
     }
@@ -126,7 +138,8 @@ final class DocumentReader {
       String pointer,
       Map<String, Integer> positions,
       int offset,
-      Map<String, JsonNode> anchors) {
+      Map<String, JsonNode> anchors,
+      List<DuplicateKey> duplicates) {
     switch (t) {
       case START_OBJECT:
         {
@@ -135,8 +148,18 @@ final class DocumentReader {
           while ((n = p.nextToken()) == JsonToken.PROPERTY_NAME) {
             String name = p.currentName();
             String child = pointer + "/" + LocatedDocument.segment(name);
+            int keyLine = offset + line(p.currentTokenLocation());
             JsonToken v = p.nextToken();
-            o.set(name, build(p, v, child, positions, offset, anchors));
+            if (o.has(name)) {
+              duplicates.add(new DuplicateKey(keyLine, name));
+            }
+            o.set(name, build(p, v, child, positions, offset, anchors, duplicates));
+            Integer valueLine = positions.get(child);
+            if (valueLine != null && valueLine != keyLine) {
+              // A block mapping or list starts on the line after its key; keep the key's line
+              // so a message can point at "resources:" itself.
+              positions.put(child + LocatedDocument.KEY_SUFFIX, keyLine);
+            }
           }
           return o;
         }
@@ -146,7 +169,7 @@ final class DocumentReader {
           JsonToken n;
           int i = 0;
           while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
-            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors));
+            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors, duplicates));
             i++;
           }
           return a;

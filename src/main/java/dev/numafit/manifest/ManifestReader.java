@@ -7,9 +7,11 @@ import dev.numafit.demand.LimitDefaults;
 import dev.numafit.demand.PodArithmetic;
 import dev.numafit.demand.PodModel;
 import dev.numafit.demand.ReplicaRules;
+import dev.numafit.demand.ReplicaMode;
 import dev.numafit.demand.Replicas;
 import dev.numafit.demand.Workload;
 import dev.numafit.demand.WorkloadId;
+import dev.numafit.demand.WorkloadSource;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
 import io.fabric8.kubernetes.api.model.LimitRange;
@@ -79,7 +81,16 @@ public final class ManifestReader {
    *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
    */
   public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
-    Session s = new Session(opts);
+    return readLocated(paths, stdin, opts).demand();
+  }
+
+  /**
+   * Reads every path in order, as {@link #read}, and also returns where each workload's pod
+   * template, replica count and containers are written, for messages that point at the line to
+   * change.
+   */
+  public ManifestRead readLocated(List<String> paths, InputStream stdin, ReadOptions opts) {
+    Reading s = new Reading(opts);
     boolean stdinRead = false;
     for (String path : paths) {
       if ("-".equals(path)) {
@@ -98,7 +109,19 @@ public final class ManifestReader {
       }
       s.readPath(path);
     }
-    return s.finish();
+    return new ManifestRead(s.finish(), s.sources);
+  }
+
+  /**
+   * Reads manifests given as text, each named as it should appear in messages (for example {@code
+   * main:deploy/app.yaml} for a file read from a git revision), in name order. A name ending in
+   * {@code .json} is read as JSON.
+   */
+  public ManifestRead readTexts(SortedMap<String, String> texts, ReadOptions opts) {
+    Reading s = new Reading(opts);
+    texts.forEach(
+        (name, text) -> s.readText(name, text, name.toLowerCase(Locale.ROOT).endsWith(".json")));
+    return new ManifestRead(s.finish(), s.sources);
   }
 
   /** A pod-bearing object waiting for namespace-wide rules (LimitRange, RuntimeClass, HPA). */
@@ -111,20 +134,56 @@ public final class ManifestReader {
       boolean custom,
       boolean scalable) {}
 
+  /** Where a candidate's pod template, replica count and containers are written. */
+  private record Lines(
+      SourceRef template, Optional<SourceRef> replicas, SortedMap<String, SourceRef> containers) {}
+
+  /**
+   * The lines of a pod spec at {@code specPtr}: the template, each container's {@code resources}
+   * key (the container's own line when it has none) and the replica count at {@code replicasPtr}
+   * when it is written.
+   */
+  private static Lines lines(LocatedDocument doc, String specPtr, String replicasPtr) {
+    SortedMap<String, SourceRef> containers = new TreeMap<>();
+    for (String list : List.of("/initContainers", "/containers")) {
+      JsonNode arr = doc.at(specPtr + list);
+      if (!arr.isArray()) {
+        continue;
+      }
+      for (int i = 0; i < arr.size(); i++) {
+        String cptr = specPtr + list + "/" + i;
+        String name = text(arr.get(i).get("name"));
+        String at = arr.get(i).has("resources") ? cptr + "/resources" : cptr;
+        containers.putIfAbsent(
+            name == null ? "#" + i : name, new SourceRef(doc.file(), doc.keyLine(at)));
+      }
+    }
+    Optional<SourceRef> replicas =
+        replicasPtr != null && doc.lines().containsKey(replicasPtr)
+            ? Optional.of(new SourceRef(doc.file(), doc.line(replicasPtr)))
+            : Optional.empty();
+    String templatePtr =
+        specPtr.endsWith("/spec") && !specPtr.equals("/spec")
+            ? specPtr.substring(0, specPtr.length() - 5)
+            : specPtr;
+    return new Lines(new SourceRef(doc.file(), doc.keyLine(templatePtr)), replicas, containers);
+  }
+
   private record Autoscaler(
       String label,
       String namespace,
       String targetKind,
       String targetName,
       int maxReplicas,
-      SourceRef source) {}
+      SourceRef source,
+      SourceRef maxReplicasAt) {}
 
-  private record NamedLimits(String name, LimitDefaults defaults) {}
+  private record NamedLimits(String name, LimitDefaults defaults, SourceRef source) {}
 
   private record Overhead(SortedMap<String, BigDecimal> podFixed, SourceRef source) {}
 
   /** State of one {@link #read} call. */
-  private final class Session {
+  private final class Reading {
     final ReadOptions opts;
     final List<Diagnostic> diags = new ArrayList<>();
     final Map<String, SourceRef> seen = new LinkedHashMap<>();
@@ -134,9 +193,11 @@ public final class ManifestReader {
     final Map<String, Map<String, NamedLimits>> limitRanges = new TreeMap<>();
     final Map<String, Overhead> runtimeClasses = new TreeMap<>();
     final Map<String, String> skipped = new LinkedHashMap<>();
+    final SortedMap<WorkloadId, WorkloadSource> sources = new TreeMap<>();
+    final Map<Candidate, Lines> candidateLines = new java.util.IdentityHashMap<>();
     int unnamed;
 
-    Session(ReadOptions opts) {
+    Reading(ReadOptions opts) {
       this.opts = opts;
     }
 
@@ -309,14 +370,14 @@ public final class ManifestReader {
     void object(LocatedDocument doc, String ptr, JsonNode node, String kind) {
       String apiVersion = text(node.get("apiVersion"));
       JsonNode meta = node.path("metadata");
-      String namespace = text(meta.get("namespace"));
+      String namespace = scalar(meta.get("namespace"));
       if (namespace == null || namespace.isBlank()) {
         namespace = "default";
       }
-      String name = text(meta.get("name"));
+      String name = scalar(meta.get("name"));
       boolean named = name != null && !name.isBlank();
       if (!named) {
-        String generate = text(meta.get("generateName"));
+        String generate = scalar(meta.get("generateName"));
         name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
       }
       WorkloadId id = new WorkloadId(namespace, kind, name);
@@ -403,9 +464,11 @@ public final class ManifestReader {
                     namespace,
                     kind,
                     name + "[" + templateLabel(tptr.substring(ptr.length())) + "]");
-        found.add(
+        Candidate custom =
             new Candidate(
-                cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas, false, true, false));
+                cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas, false, true, false);
+        candidateLines.put(custom, lines(doc, tptr + "/spec", parent + "/replicas"));
+        found.add(custom);
       }
       if (!ctx.errors.isEmpty()) {
         diags.addAll(ctx.errors);
@@ -433,7 +496,11 @@ public final class ManifestReader {
             return false;
           }
           PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false), ctx);
+          put(
+              key,
+              new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false),
+              ctx,
+              lines(ctx.doc, spec, null));
         }
         case DEPLOYMENT -> {
           Deployment o = convert(node, Deployment.class, ptr, ctx);
@@ -509,7 +576,8 @@ public final class ManifestReader {
           put(
               key,
               new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false),
-              ctx);
+              ctx,
+              lines(ctx.doc, template, null));
         }
         case JOB -> {
           Job o = convert(node, Job.class, ptr, ctx);
@@ -561,7 +629,8 @@ public final class ManifestReader {
                   s.getScaleTargetRef().getKind(),
                   s.getScaleTargetRef().getName(),
                   s.getMaxReplicas(),
-                  source));
+                  source,
+                  new SourceRef(ctx.doc.file(), ctx.doc.line(spec + "/maxReplicas"))));
         }
         case LIMIT_RANGE -> {
           LimitRange o = convert(node, LimitRange.class, ptr, ctx);
@@ -600,7 +669,7 @@ public final class ManifestReader {
           if (ctx.errors.isEmpty()) {
             limitRanges
                 .computeIfAbsent(id.namespace(), n -> new TreeMap<>())
-                .put(key, new NamedLimits(id.name(), d));
+                .put(key, new NamedLimits(id.name(), d, source));
           }
         }
         case RUNTIME_CLASS -> {
@@ -645,7 +714,8 @@ public final class ManifestReader {
       put(
           key,
           new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false, true),
-          ctx);
+          ctx,
+          lines(ctx.doc, templatePtr, specPtr + "/replicas"));
     }
 
     void job(
@@ -676,12 +746,14 @@ public final class ManifestReader {
           key,
           new Candidate(
               id, source, pod, ReplicaRules.job(parallelism, completions), false, false, false),
-          ctx);
+          ctx,
+          lines(ctx.doc, jobSpecPtr + "/template/spec", jobSpecPtr + "/parallelism"));
     }
 
-    void put(String key, Candidate c, ObjectContext ctx) {
+    void put(String key, Candidate c, ObjectContext ctx, Lines at) {
       if (ctx.errors.isEmpty()) {
         workloads.put(key, c);
+        candidateLines.put(c, at);
       }
     }
 
@@ -731,6 +803,15 @@ public final class ManifestReader {
           if (de instanceof MismatchedInputException m) {
             target = m.getTargetType();
           }
+          Throwable root = de;
+          while (root.getCause() != null) {
+            root = root.getCause();
+          }
+          // fabric8's Quantity deserializer rejects some forms (1e3m, 1K) with a bare message.
+          String rootMessage = String.valueOf(root.getMessage()).toLowerCase(Locale.ROOT);
+          if (target == null && rootMessage.contains("quantity")) {
+            target = io.fabric8.kubernetes.api.model.Quantity.class;
+          }
         }
         String field = dotted.length() == 0 ? "object" : dotted.toString();
         JsonNode value = ctx.doc.at(pointer.toString());
@@ -754,8 +835,27 @@ public final class ManifestReader {
             List<NamedLimits> sorted = new ArrayList<>(byKey.values());
             sorted.sort((a, b) -> a.name().compareTo(b.name()));
             LimitDefaults d = LimitDefaults.NONE;
+            List<NamedLimits> withDefaults = new ArrayList<>();
             for (NamedLimits n : sorted) {
               d = d.then(n.defaults());
+              if (!n.defaults().isEmpty()) {
+                withDefaults.add(n);
+              }
+            }
+            if (withDefaults.size() > 1) {
+              // "Limit Ranges": with two or more, which default applies is not deterministic.
+              NamedLimits first = withDefaults.get(0);
+              diags.add(
+                  Diagnostic.warning(
+                      first.source(),
+                      "namespace "
+                          + ns
+                          + " has "
+                          + withDefaults.size()
+                          + " LimitRanges with container defaults; Kubernetes applies them in no"
+                          + " fixed order, so the first by name ("
+                          + first.name()
+                          + ") wins here for each resource it sets"));
             }
             defaults.put(ns, d);
           });
@@ -882,6 +982,20 @@ public final class ManifestReader {
       if (c.custom()) {
         flags.add(GUESS_FLAG);
       }
+      Lines at = candidateLines.get(c);
+      if (at != null) {
+        Optional<SourceRef> replicasAt = at.replicas();
+        if (!hpas.isEmpty() && opts.replicaMode() == ReplicaMode.PEAK) {
+          Autoscaler top = hpas.get(0);
+          for (Autoscaler a : hpas) {
+            if (a.maxReplicas() > top.maxReplicas()) {
+              top = a;
+            }
+          }
+          replicasAt = Optional.of(top.maxReplicasAt());
+        }
+        sources.put(c.id(), new WorkloadSource(at.template(), replicasAt, at.containers(), pod));
+      }
       return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
     }
   }
@@ -902,6 +1016,11 @@ public final class ManifestReader {
 
   private static String text(JsonNode n) {
     return n != null && n.isString() ? n.asString() : null;
+  }
+
+  /** A string or number as text ({@code name: 123} names an object "123"), else null. */
+  private static String scalar(JsonNode n) {
+    return n != null && (n.isString() || n.isNumber()) ? n.asString() : null;
   }
 
   /**

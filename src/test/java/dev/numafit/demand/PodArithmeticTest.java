@@ -28,8 +28,8 @@ class PodArithmeticTest {
         new PodModel(
             List.of(),
             List.of(
-                app("busybox-ctr", map(), map("cpu", milli(500), "memory", mi(100))),
-                app("nginx-ctr", map(), map("cpu", milli(1500), "memory", mi(100)))),
+                app("first-ctr", map(), map("cpu", milli(500), "memory", mi(100))),
+                app("second-ctr", map(), map("cpu", milli(1500), "memory", mi(100)))),
             withOverhead ? map("cpu", milli(250), "memory", mi(120)) : map(),
             map(),
             map(),

@@ -83,7 +83,7 @@ class ManifestReaderTest {
       spec:
         runtimeClassName: sandboxed
         containers:
-        - name: busybox-ctr
+        - name: first-ctr
           image: example.invalid/app:1
           resources:
             limits:
@@ -915,6 +915,74 @@ class ManifestReaderTest {
                 + ":2: warning: shop/Deployment/storefront is the target of 2"
                 + " HorizontalPodAutoscalers; the largest maxReplicas (shop/storefront-burst) is"
                 + " used"),
+        messages(d, Severity.WARNING));
+  }
+
+  @Test
+  void read_quantityWithTwoSuffixes_errorNamingField() throws IOException {
+    // Quantity reference (K10): a number takes one suffix, a unit or an exponent, not both.
+    Path f = write("suffix.yaml", pod("twice", "requests: {cpu: 1e3m}"));
+    assertEquals(
+        List.of(
+            f
+                + ":9: error: default/Pod/twice: spec.containers[0].resources.requests.cpu expects"
+                + " a Kubernetes quantity (expected e.g. 500m, 2, 1.5Gi), got \"1e3m\""),
+        messages(read(f), Severity.ERROR));
+  }
+
+  @Test
+  void read_duplicateKey_warningAndLaterValueUsed() throws IOException {
+    Path f =
+        write(
+            "dupkey.yaml",
+            """
+            apiVersion: apps/v1
+            kind: Deployment
+            metadata: {name: twice}
+            spec:
+              replicas: 2
+              replicas: 4
+              template:
+                spec:
+                  containers: [{name: a}]
+            """);
+    Demand d = read(f);
+    assertEquals(4, workload(d, "default/Deployment/twice").replicas().peak());
+    assertEquals(
+        List.of(
+            f + ":6: warning: duplicate key \"replicas\" in one mapping; the later value is used"),
+        messages(d, Severity.WARNING));
+  }
+
+  @Test
+  void read_twoLimitRangesWithDefaults_warningAndFirstByNameWins() throws IOException {
+    String range =
+        """
+        apiVersion: v1
+        kind: LimitRange
+        metadata: {name: %s}
+        spec:
+          limits:
+          - type: Container
+            default: {cpu: %s}
+        ---
+        """;
+    Path f =
+        write(
+            "ranges.yaml",
+            range.formatted("b-range", "900m")
+                + range.formatted("a-range", "500m")
+                + pod("plain", "{}"));
+    Demand d = read(f);
+    assertEquals(500L, workload(d, "default/Pod/plain").pod().limits().get("cpu"));
+    // "Limit Ranges" (kubernetes.io/docs/concepts/policy/limit-range/): with two or more
+    // LimitRanges in a namespace, which default is applied is not deterministic.
+    assertEquals(
+        List.of(
+            f
+                + ":10: warning: namespace default has 2 LimitRanges with container defaults;"
+                + " Kubernetes applies them in no fixed order, so the first by name (a-range) wins"
+                + " here for each resource it sets"),
         messages(d, Severity.WARNING));
   }
 }
