@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.ReplicaMode;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -90,7 +91,7 @@ public final class CheckCommand implements Callable<Integer> {
   @Option(names = "--replicas", paramLabel = "peak|declared",
       description = "peak: an HPA's maxReplicas where one targets the workload (default);"
           + " declared: spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  ReplicaMode replicas = ReplicaMode.PEAK;
 
   @Option(names = "--host-failures", paramLabel = "K",
       description = "Add K whole hosts of headroom (default: 0).")

@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.ReplicaMode;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -47,7 +48,7 @@ public final class DemandCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  ReplicaMode replicas = ReplicaMode.PEAK;
 
   @Option(
       names = "--include-custom",

@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.ReplicaMode;
 import dev.numafit.report.ReportFormat;
 import java.nio.file.Path;
 import java.util.List;
@@ -9,7 +10,7 @@ import java.util.Optional;
 /** The checked options of {@code numafit demand}. */
 public record DemandOptions(
     List<String> files,
-    ReplicasOption replicas,
+    ReplicaMode replicas,
     boolean includeCustom,
     boolean skipInvalid,
     ReportFormat format,

@@ -20,6 +20,8 @@ import picocli.CommandLine.Spec;
       DemandCommand.class,
       PlanCommand.class,
       CheckCommand.class,
+      SnapshotCommand.class,
+      ReviewCommand.class,
       CompletionCommand.class,
       ProfileCommand.class,
       CommandLine.HelpCommand.class
@@ -51,6 +53,9 @@ public final class NumafitCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     throw new CommandLine.ParameterException(
-        spec.commandLine(), "missing command (expected one of: demand, plan, completion, help)");
+        spec.commandLine(),
+        "missing command (expected one of: "
+            + String.join(", ", spec.subcommands().keySet())
+            + ")");
   }
 }

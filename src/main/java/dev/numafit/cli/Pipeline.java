@@ -58,8 +58,7 @@ final class Pipeline {
     Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
     List<Diagnostic> shown = checkInput(demand.diagnostics(), List.of(), o.skipInvalid());
     DemandReport report = new DemandReport(demand, shown);
-    ReportWriter<DemandReport> writer =
-        o.format() == ReportFormat.JSON ? new DemandJsonWriter() : new DemandTextWriter();
+    ReportWriter<DemandReport> writer = demandWriter(o.format());
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
@@ -108,7 +107,7 @@ final class Pipeline {
         notes.addAll(set.notes());
       }
       if (fit.workersPerHost() < 1) {
-        problems.add("--worker " + describe(shape) + " does not fit on host profile "
+        problems.add("a --worker of " + describe(shape) + " does not fit on host profile "
             + host.name() + " (larger than the whole host)");
         continue;
       }
@@ -169,8 +168,7 @@ final class Pipeline {
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
-    ReportWriter<PlanReport> writer =
-        o.format() == ReportFormat.JSON ? new PlanJsonWriter() : new PlanTextWriter();
+    ReportWriter<PlanReport> writer = planWriter(o.format());
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
@@ -178,10 +176,25 @@ final class Pipeline {
     return ExitCode.OK.code();
   }
 
+  /** The writer of each format for plan reports. */
+  static ReportWriter<PlanReport> planWriter(ReportFormat format) {
+    return switch (format) {
+      case TEXT -> new PlanTextWriter();
+      case JSON -> new PlanJsonWriter();
+    };
+  }
+
+  /** The writer of each format for demand reports. */
+  static ReportWriter<DemandReport> demandWriter(ReportFormat format) {
+    return switch (format) {
+      case TEXT -> new DemandTextWriter();
+      case JSON -> new DemandJsonWriter();
+    };
+  }
+
   private static Demand readDemand(
-      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
-    ReplicaMode mode = replicas == ReplicasOption.DECLARED ? ReplicaMode.DECLARED : ReplicaMode.PEAK;
-    return new ManifestReader().read(files, console.in(), new ReadOptions(mode, includeCustom));
+      List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
+    return new ManifestReader().read(files, console.in(), new ReadOptions(replicas, includeCustom));
   }
 
   /**
@@ -244,7 +257,7 @@ final class Pipeline {
   }
 
   private static String describe(WorkerShape s) {
-    return "cpu=" + s.vcpus() + ",memory=" + s.memoryBytes();
+    return s.vcpus() + " vCPU, " + dev.numafit.report.Units.bytes(s.memoryBytes());
   }
 
   /**

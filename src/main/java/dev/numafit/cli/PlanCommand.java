@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.ReplicaMode;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -107,7 +108,7 @@ public final class PlanCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  ReplicaMode replicas = ReplicaMode.PEAK;
 
   @Option(
       names = "--host-failures",

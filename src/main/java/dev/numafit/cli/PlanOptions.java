@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.demand.ReplicaMode;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.KubeletReserve;
@@ -33,7 +34,7 @@ public record PlanOptions(
     Optional<Resources> worker,
     KubeletReserve reserve,
     Resources perWorker,
-    ReplicasOption replicas,
+    ReplicaMode replicas,
     int hostFailures,
     int maxUtilizationPct,
     BigDecimal growth,

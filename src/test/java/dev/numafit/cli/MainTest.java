@@ -52,7 +52,7 @@ class MainTest {
     CliRun r = CliRun.of();
     assertEquals(2, r.code());
     assertEquals(
-        "error: missing command (expected one of: demand, plan, completion, help)\n"
+        "error: missing command (expected one of: demand, plan, check, snapshot, review, completion, profile, help)\n"
             + "Run 'numafit --help' for usage.\n",
         r.err());
     assertEquals("", r.out());
@@ -152,5 +152,23 @@ class MainTest {
       assertFalse(r.err().contains("\tat "), r.err());
       assertFalse(r.err().contains("Exception"), r.err());
     }
+  }
+
+  @Test
+  void run_colourOn_coloursOnlyTheSeverityWord() {
+    java.io.ByteArrayOutputStream err = new java.io.ByteArrayOutputStream();
+    int code =
+        Main.run(
+            new String[] {"plan", "--worker", "cpu=4,memory=8Gi"},
+            new java.io.ByteArrayInputStream(new byte[0]),
+            new java.io.PrintStream(new java.io.ByteArrayOutputStream(), true),
+            new java.io.PrintStream(err, true, java.nio.charset.StandardCharsets.UTF_8),
+            java.nio.file.Path.of("").toAbsolutePath(),
+            true);
+    assertEquals(2, code);
+    assertTrue(
+        err.toString(java.nio.charset.StandardCharsets.UTF_8)
+            .startsWith("\u001b[31merror\u001b[0m: plan needs at least one -f/--filename"),
+        err.toString(java.nio.charset.StandardCharsets.UTF_8));
   }
 }
