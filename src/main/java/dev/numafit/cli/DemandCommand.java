@@ -62,25 +62,6 @@ public final class DemandCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    List<String> problems = new ArrayList<>();
-    if (files.isEmpty()) {
-      problems.add("demand needs at least one -f/--filename (a file, a folder, or - for standard"
-          + " input)");
-    }
-    if (files.stream().filter("-"::equals).count() > 1) {
-      problems.add("-f - (standard input) can be given only once");
-    }
-    if (!problems.isEmpty()) {
-      throw new UsageException(problems);
-    }
-    return Pipeline.demand(
-        new DemandOptions(
-            files,
-            replicas,
-            includeCustom,
-            skipInvalid,
-            common.output,
-            java.util.Optional.ofNullable(common.out)),
-        root.console());
+    return Pipeline.demand(DemandOptions.check(this), root.console());
   }
 }
