@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -48,7 +47,7 @@ public final class DemandCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(
       names = "--include-custom",

@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import dev.numafit.report.ReportFormat;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -11,7 +10,7 @@ import java.util.Optional;
 /** The options of {@code numafit demand} after its rules were checked (see {@link #check}). */
 public record DemandOptions(
     List<String> files,
-    ReplicaMode replicas,
+    ReplicasOption replicas,
     boolean includeCustom,
     boolean skipInvalid,
     ReportFormat format,

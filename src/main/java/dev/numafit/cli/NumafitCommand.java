@@ -19,6 +19,9 @@ import picocli.CommandLine.Spec;
     subcommands = {
       DemandCommand.class,
       PlanCommand.class,
+      CheckCommand.class,
+      SnapshotCommand.class,
+      ReviewCommand.class,
       CompletionCommand.class,
       ProfileCommand.class,
       CommandLine.HelpCommand.class
