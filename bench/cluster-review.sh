@@ -30,7 +30,7 @@ grep '^ready' "$out/server.log"
 
 run() {
   local label="$1"; shift
-  /usr/bin/time -f "%e s wall, %M KiB max RSS" -o "$out/$label.time" \
+  /usr/bin/time -f "%e s wall, %U s user CPU, %M KiB max RSS" -o "$out/$label.time" \
     java -Xmx"$HEAP" -XX:+UseSerialGC -Xlog:gc:file="$out/$label.gc" -jar target/numafit.jar "$@" \
     >"$out/$label.out" 2>"$out/$label.err" || true
   # Largest heap in use before a collection, from the GC log ("12M->3M(20M)": 12M).
