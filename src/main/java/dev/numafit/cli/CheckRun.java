@@ -37,7 +37,7 @@ final class CheckRun {
   static int run(CheckSettings s, Console console) throws InputException {
     PlanOptions po = s.plan();
     ReadOptions read = new ReadOptions(
-        po.replicas(),
+        po.replicas().mode(),
         po.includeCustom());
     Pipeline.checkPathsExist(po.files());
     Pipeline.checkPathsExist(s.baseline());
