@@ -18,11 +18,13 @@ import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.DemandJsonWriter;
 import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.Allocatable;
@@ -87,7 +89,7 @@ final class Pipeline {
     }
     Optional<PlanComparison> comparison =
         plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, sized.hosts());
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
@@ -102,12 +104,14 @@ final class Pipeline {
   /**
    * What sizing needs besides the demand, shared by {@code plan} and {@code check}: one plan input
    * per host profile in order (or one for a bare --worker), the worker shape of each, the profiles'
-   * relative costs, and the profiles' warnings.
+   * relative costs, each profile's host and worker layout (for the HTML report), and the
+   * profiles' warnings.
    */
   record Sized(
       List<PlanInput> inputs,
       List<WorkerShape> shapes,
       Map<String, BigDecimal> costs,
+      TreeMap<String, PlanHost> hosts,
       List<Diagnostic> warnings) {}
 
   /**
@@ -123,6 +127,9 @@ final class Pipeline {
     List<Diagnostic> warnings = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
+    TreeMap<String, PlanHost> hosts = new TreeMap<>();
+    // The fill charts need to know which pods share a worker.
+    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -173,11 +180,12 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               notes,
               planWarnings);
       inputs.add(in);
       shapes.add(shape);
+      hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
     if (o.hostProfiles().isEmpty()) {
       WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
@@ -195,7 +203,7 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
               planWarnings);
       inputs.add(in);
@@ -204,7 +212,7 @@ final class Pipeline {
     if (!problems.isEmpty()) {
       throw new UsageException(problems);
     }
-    return new Sized(inputs, shapes, costs, warnings);
+    return new Sized(inputs, shapes, costs, hosts, warnings);
   }
 
   /** The writer of each format for plan reports. */
@@ -212,6 +220,7 @@ final class Pipeline {
     return switch (format) {
       case TEXT -> new PlanTextWriter();
       case JSON -> new PlanJsonWriter();
+      case HTML -> new PlanHtmlWriter();
     };
   }
 
@@ -220,6 +229,8 @@ final class Pipeline {
     return switch (format) {
       case TEXT -> new DemandTextWriter();
       case JSON -> new DemandJsonWriter();
+      // DemandCommand refuses these formats before anything is read.
+      case HTML -> throw new IllegalArgumentException("demand writes text or json");
     };
   }
 
