@@ -5,7 +5,8 @@ source "$(dirname "$0")/common.sh"
 build_bench
 FILE="${1:-target/bench/workload-150k.yaml}"
 [ -f "$FILE" ] || java -cp "$CP" dev.numafit.bench.WorkloadGenerator "$FILE"
-JAVA_OPTS="${JAVA_OPTS:--Xmx1g}"
+# The launcher's JVM options (see ./numafit); NUMAFIT_JAVA_OPTS replaces them, as there.
+JAVA_OPTS="${NUMAFIT_JAVA_OPTS:--XX:+UseSerialGC -XX:TieredStopAtLevel=1}"
 times=()
 for i in 1 2 3 4 5; do
   start=$(date +%s%N)

@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.InputException;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -82,10 +81,5 @@ final class Errors
 
   private void hint(CommandLine cmd) {
     console.err().println("Run '" + cmd.getCommandSpec().qualifiedName() + " --help' for usage.");
-  }
-
-  /** Prints each diagnostic on standard error; used for input problems that do not stop a run. */
-  void reportAll(Iterable<Diagnostic> ds) {
-    ds.forEach(console::report);
   }
 }

@@ -19,6 +19,9 @@ import picocli.CommandLine.ParseResult;
  * everything else goes through {@link #run} so tests can drive the whole CLI with byte streams.
  */
 public final class Main {
+  /** The commands that read the project config file. */
+  private static final java.util.Set<String> CONFIGURABLE = java.util.Set.of("plan", "check");
+
   private Main() {}
 
   public static void main(String... args) {
@@ -90,7 +93,8 @@ public final class Main {
       return args;
     }
     ParseResult sub = root.subcommand();
-    if (sub == null || !sub.commandSpec().name().equals("plan") || sub.isUsageHelpRequested()
+    if (sub == null || !CONFIGURABLE.contains(sub.commandSpec().name())
+        || sub.isUsageHelpRequested()
         || sub.isVersionHelpRequested()) {
       return args;
     }
@@ -116,7 +120,7 @@ public final class Main {
         entries.add(e);
       }
     }
-    int at = Arrays.asList(args).indexOf("plan");
+    int at = Arrays.asList(args).indexOf(sub.commandSpec().name());
     List<String> merged = new ArrayList<>(Arrays.asList(args).subList(0, at + 1));
     merged.addAll(ConfigFile.toArgs(entries));
     merged.addAll(Arrays.asList(args).subList(at + 1, args.length));

@@ -19,6 +19,7 @@ import picocli.CommandLine.Spec;
     subcommands = {
       DemandCommand.class,
       PlanCommand.class,
+      CheckCommand.class,
       SnapshotCommand.class,
       ReviewCommand.class,
       CompletionCommand.class,
@@ -52,6 +53,9 @@ public final class NumafitCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     throw new CommandLine.ParameterException(
-        spec.commandLine(), "missing command (expected one of: demand, plan, completion, help)");
+        spec.commandLine(),
+        "missing command (expected one of: "
+            + String.join(", ", spec.subcommands().keySet())
+            + ")");
   }
 }

@@ -18,11 +18,13 @@ import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.DemandJsonWriter;
 import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.Allocatable;
@@ -58,8 +60,7 @@ final class Pipeline {
     Demand demand = readDemand(o.files(), o.replicas(), o.includeCustom(), console);
     List<Diagnostic> shown = checkInput(demand.diagnostics(), List.of(), o.skipInvalid());
     DemandReport report = new DemandReport(demand, shown);
-    ReportWriter<DemandReport> writer =
-        o.format() == ReportFormat.JSON ? new DemandJsonWriter() : new DemandTextWriter();
+    ReportWriter<DemandReport> writer = demandWriter(o.format());
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
@@ -79,6 +80,9 @@ final class Pipeline {
     List<Plan> plans = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
+    TreeMap<String, PlanHost> hosts = new TreeMap<>();
+    // The fill charts need to know which pods share a worker.
+    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -108,7 +112,7 @@ final class Pipeline {
         notes.addAll(set.notes());
       }
       if (fit.workersPerHost() < 1) {
-        problems.add("--worker " + describe(shape) + " does not fit on host profile "
+        problems.add("a --worker of " + describe(shape) + " does not fit on host profile "
             + host.name() + " (larger than the whole host)");
         continue;
       }
@@ -129,11 +133,12 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               notes,
               planWarnings);
       plans.add(planner.plan(demand, in));
       shapes.add(shape);
+      hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
     if (o.hostProfiles().isEmpty()) {
       WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
@@ -151,7 +156,7 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
               planWarnings);
       plans.add(planner.plan(demand, in));
@@ -165,12 +170,11 @@ final class Pipeline {
     }
     Optional<PlanComparison> comparison =
         plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, hosts);
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
-    ReportWriter<PlanReport> writer =
-        o.format() == ReportFormat.JSON ? new PlanJsonWriter() : new PlanTextWriter();
+    ReportWriter<PlanReport> writer = planWriter(o.format());
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
@@ -178,10 +182,29 @@ final class Pipeline {
     return ExitCode.OK.code();
   }
 
+  /** The writer of each format for plan reports. */
+  static ReportWriter<PlanReport> planWriter(ReportFormat format) {
+    return switch (format) {
+      case TEXT -> new PlanTextWriter();
+      case JSON -> new PlanJsonWriter();
+      case HTML -> new PlanHtmlWriter();
+    };
+  }
+
+  /** The writer of each format for demand reports. */
+  static ReportWriter<DemandReport> demandWriter(ReportFormat format) {
+    return switch (format) {
+      case TEXT -> new DemandTextWriter();
+      case JSON -> new DemandJsonWriter();
+      // DemandCommand refuses these formats before anything is read.
+      case HTML -> throw new IllegalArgumentException("demand writes text or json");
+    };
+  }
+
   private static Demand readDemand(
       List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
-    ReplicaMode mode = replicas == ReplicasOption.DECLARED ? ReplicaMode.DECLARED : ReplicaMode.PEAK;
-    return new ManifestReader().read(files, console.in(), new ReadOptions(mode, includeCustom));
+    return new ManifestReader()
+        .read(files, console.in(), new ReadOptions(replicas.mode(), includeCustom));
   }
 
   /**
@@ -244,7 +267,7 @@ final class Pipeline {
   }
 
   private static String describe(WorkerShape s) {
-    return "cpu=" + s.vcpus() + ",memory=" + s.memoryBytes();
+    return s.vcpus() + " vCPU, " + dev.numafit.report.Units.bytes(s.memoryBytes());
   }
 
   /**

@@ -204,7 +204,7 @@ public final class ReviewCommand implements Callable<Integer> {
     ResizeRequest request = new ResizeRequest(kv[0], kv[1],
         nodes == null ? OptionalInt.empty() : OptionalInt.of(nodes), shape, oneNode,
         profile.map(HostProfile::name), hostFailures, Optional.ofNullable(hostLabel), perHost,
-        source, replicas == ReplicasOption.DECLARED ? ReplicaMode.DECLARED : ReplicaMode.PEAK);
+        source, replicas.mode());
 
     ClusterModel model = cluster.load(console, verbose);
     Review review;

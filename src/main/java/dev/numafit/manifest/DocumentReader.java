@@ -154,6 +154,12 @@ final class DocumentReader {
               duplicates.add(new DuplicateKey(keyLine, name));
             }
             o.set(name, build(p, v, child, positions, offset, anchors, duplicates));
+            Integer valueLine = positions.get(child);
+            if (valueLine != null && valueLine != keyLine) {
+              // A block mapping or list starts on the line after its key; keep the key's line
+              // so a message can point at "resources:" itself.
+              positions.put(child + LocatedDocument.KEY_SUFFIX, keyLine);
+            }
           }
           return o;
         }

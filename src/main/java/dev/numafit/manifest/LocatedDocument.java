@@ -26,6 +26,18 @@ record LocatedDocument(String file, JsonNode root, Map<String, Integer> lines, i
     }
   }
 
+  /**
+   * Suffix of the entries that hold the line of a property's key where it differs from its
+   * value's line; {@code ~} followed by a letter never occurs in an escaped pointer.
+   */
+  static final String KEY_SUFFIX = "~k";
+
+  /** The line of the key of the property at {@code pointer} (for a list item, its own line). */
+  int keyLine(String pointer) {
+    Integer l = lines.get(pointer + KEY_SUFFIX);
+    return l != null ? l : line(pointer);
+  }
+
   /** A JSON Pointer segment for a property name (RFC 6901 escaping). */
   static String segment(String name) {
     if (name.indexOf('~') < 0 && name.indexOf('/') < 0) {

@@ -7,9 +7,11 @@ import dev.numafit.demand.LimitDefaults;
 import dev.numafit.demand.PodArithmetic;
 import dev.numafit.demand.PodModel;
 import dev.numafit.demand.ReplicaRules;
+import dev.numafit.demand.ReplicaMode;
 import dev.numafit.demand.Replicas;
 import dev.numafit.demand.Workload;
 import dev.numafit.demand.WorkloadId;
+import dev.numafit.demand.WorkloadSource;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.SourceRef;
 import io.fabric8.kubernetes.api.model.LimitRange;
@@ -79,6 +81,15 @@ public final class ManifestReader {
    *     in sorted path order, only those extensions) or {@code -} for {@code stdin}
    */
   public Demand read(List<String> paths, InputStream stdin, ReadOptions opts) {
+    return readLocated(paths, stdin, opts).demand();
+  }
+
+  /**
+   * Reads every path in order, as {@link #read}, and also returns where each workload's pod
+   * template, replica count and containers are written, for messages that point at the line to
+   * change.
+   */
+  public ManifestRead readLocated(List<String> paths, InputStream stdin, ReadOptions opts) {
     Reading s = new Reading(opts);
     boolean stdinRead = false;
     for (String path : paths) {
@@ -98,7 +109,19 @@ public final class ManifestReader {
       }
       s.readPath(path);
     }
-    return s.finish();
+    return new ManifestRead(s.finish(), s.sources);
+  }
+
+  /**
+   * Reads manifests given as text, each named as it should appear in messages (for example {@code
+   * main:deploy/app.yaml} for a file read from a git revision), in name order. A name ending in
+   * {@code .json} is read as JSON.
+   */
+  public ManifestRead readTexts(SortedMap<String, String> texts, ReadOptions opts) {
+    Reading s = new Reading(opts);
+    texts.forEach(
+        (name, text) -> s.readText(name, text, name.toLowerCase(Locale.ROOT).endsWith(".json")));
+    return new ManifestRead(s.finish(), s.sources);
   }
 
   /** A pod-bearing object waiting for namespace-wide rules (LimitRange, RuntimeClass, HPA). */
@@ -111,13 +134,49 @@ public final class ManifestReader {
       boolean custom,
       boolean scalable) {}
 
+  /** Where a candidate's pod template, replica count and containers are written. */
+  private record Lines(
+      SourceRef template, Optional<SourceRef> replicas, SortedMap<String, SourceRef> containers) {}
+
+  /**
+   * The lines of a pod spec at {@code specPtr}: the template, each container's {@code resources}
+   * key (the container's own line when it has none) and the replica count at {@code replicasPtr}
+   * when it is written.
+   */
+  private static Lines lines(LocatedDocument doc, String specPtr, String replicasPtr) {
+    SortedMap<String, SourceRef> containers = new TreeMap<>();
+    for (String list : List.of("/initContainers", "/containers")) {
+      JsonNode arr = doc.at(specPtr + list);
+      if (!arr.isArray()) {
+        continue;
+      }
+      for (int i = 0; i < arr.size(); i++) {
+        String cptr = specPtr + list + "/" + i;
+        String name = text(arr.get(i).get("name"));
+        String at = arr.get(i).has("resources") ? cptr + "/resources" : cptr;
+        containers.putIfAbsent(
+            name == null ? "#" + i : name, new SourceRef(doc.file(), doc.keyLine(at)));
+      }
+    }
+    Optional<SourceRef> replicas =
+        replicasPtr != null && doc.lines().containsKey(replicasPtr)
+            ? Optional.of(new SourceRef(doc.file(), doc.line(replicasPtr)))
+            : Optional.empty();
+    String templatePtr =
+        specPtr.endsWith("/spec") && !specPtr.equals("/spec")
+            ? specPtr.substring(0, specPtr.length() - 5)
+            : specPtr;
+    return new Lines(new SourceRef(doc.file(), doc.keyLine(templatePtr)), replicas, containers);
+  }
+
   private record Autoscaler(
       String label,
       String namespace,
       String targetKind,
       String targetName,
       int maxReplicas,
-      SourceRef source) {}
+      SourceRef source,
+      SourceRef maxReplicasAt) {}
 
   private record NamedLimits(String name, LimitDefaults defaults, SourceRef source) {}
 
@@ -134,6 +193,8 @@ public final class ManifestReader {
     final Map<String, Map<String, NamedLimits>> limitRanges = new TreeMap<>();
     final Map<String, Overhead> runtimeClasses = new TreeMap<>();
     final Map<String, String> skipped = new LinkedHashMap<>();
+    final SortedMap<WorkloadId, WorkloadSource> sources = new TreeMap<>();
+    final Map<Candidate, Lines> candidateLines = new java.util.IdentityHashMap<>();
     int unnamed;
 
     Reading(ReadOptions opts) {
@@ -403,9 +464,11 @@ public final class ManifestReader {
                     namespace,
                     kind,
                     name + "[" + templateLabel(tptr.substring(ptr.length())) + "]");
-        found.add(
+        Candidate custom =
             new Candidate(
-                cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas, false, true, false));
+                cid, new SourceRef(doc.file(), doc.line(tptr)), pod, replicas, false, true, false);
+        candidateLines.put(custom, lines(doc, tptr + "/spec", parent + "/replicas"));
+        found.add(custom);
       }
       if (!ctx.errors.isEmpty()) {
         diags.addAll(ctx.errors);
@@ -433,7 +496,11 @@ public final class ManifestReader {
             return false;
           }
           PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
-          put(key, new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false), ctx);
+          put(
+              key,
+              new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false),
+              ctx,
+              lines(ctx.doc, spec, null));
         }
         case DEPLOYMENT -> {
           Deployment o = convert(node, Deployment.class, ptr, ctx);
@@ -509,7 +576,8 @@ public final class ManifestReader {
           put(
               key,
               new Candidate(id, source, pod, ReplicaRules.daemonSet(), true, false, false),
-              ctx);
+              ctx,
+              lines(ctx.doc, template, null));
         }
         case JOB -> {
           Job o = convert(node, Job.class, ptr, ctx);
@@ -561,7 +629,8 @@ public final class ManifestReader {
                   s.getScaleTargetRef().getKind(),
                   s.getScaleTargetRef().getName(),
                   s.getMaxReplicas(),
-                  source));
+                  source,
+                  new SourceRef(ctx.doc.file(), ctx.doc.line(spec + "/maxReplicas"))));
         }
         case LIMIT_RANGE -> {
           LimitRange o = convert(node, LimitRange.class, ptr, ctx);
@@ -645,7 +714,8 @@ public final class ManifestReader {
       put(
           key,
           new Candidate(id, source, pod, ReplicaRules.scalable(replicas), false, false, true),
-          ctx);
+          ctx,
+          lines(ctx.doc, templatePtr, specPtr + "/replicas"));
     }
 
     void job(
@@ -676,12 +746,14 @@ public final class ManifestReader {
           key,
           new Candidate(
               id, source, pod, ReplicaRules.job(parallelism, completions), false, false, false),
-          ctx);
+          ctx,
+          lines(ctx.doc, jobSpecPtr + "/template/spec", jobSpecPtr + "/parallelism"));
     }
 
-    void put(String key, Candidate c, ObjectContext ctx) {
+    void put(String key, Candidate c, ObjectContext ctx, Lines at) {
       if (ctx.errors.isEmpty()) {
         workloads.put(key, c);
+        candidateLines.put(c, at);
       }
     }
 
@@ -909,6 +981,20 @@ public final class ManifestReader {
       }
       if (c.custom()) {
         flags.add(GUESS_FLAG);
+      }
+      Lines at = candidateLines.get(c);
+      if (at != null) {
+        Optional<SourceRef> replicasAt = at.replicas();
+        if (!hpas.isEmpty() && opts.replicaMode() == ReplicaMode.PEAK) {
+          Autoscaler top = hpas.get(0);
+          for (Autoscaler a : hpas) {
+            if (a.maxReplicas() > top.maxReplicas()) {
+              top = a;
+            }
+          }
+          replicasAt = Optional.of(top.maxReplicasAt());
+        }
+        sources.put(c.id(), new WorkloadSource(at.template(), replicasAt, at.containers(), pod));
       }
       return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
     }

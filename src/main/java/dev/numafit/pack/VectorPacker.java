@@ -166,6 +166,12 @@ public final class VectorPacker {
       int[] count = new int[n];
       int types = 0;
       for (int i = 0; i < n; i++) {
+        if (i > 0 && items[i] == items[i - 1]) {
+          // Replicas usually share one row: no need to hash it again.
+          typeOf[i] = typeOf[i - 1];
+          count[typeOf[i]]++;
+          continue;
+        }
         long[] v = new long[d];
         for (int j = 0; j < d; j++) {
           v[j] = items[i][dims[j]];

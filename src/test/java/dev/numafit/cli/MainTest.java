@@ -51,10 +51,10 @@ class MainTest {
   void run_noCommand_exitsTwoWithMessage() {
     CliRun r = CliRun.of();
     assertEquals(2, r.code());
-    assertEquals(
-        "error: missing command (expected one of: demand, plan, completion, help)\n"
-            + "Run 'numafit --help' for usage.\n",
-        r.err());
+    // The list comes from the registered subcommands, so it grows with them.
+    assertTrue(
+        r.err().startsWith("error: missing command (expected one of: demand, plan, "), r.err());
+    assertTrue(r.err().endsWith(", help)\nRun 'numafit --help' for usage.\n"), r.err());
     assertEquals("", r.out());
   }
 
@@ -118,7 +118,17 @@ class MainTest {
         r.err()
             .startsWith(
                 "error: Invalid value for option '--output': unknown output format \"yaml\""
-                    + " (expected one of: text, json)"),
+                    + " (expected one of: text, json, html)"),
+        r.err());
+  }
+
+  @Test
+  void run_demandAsHtml_exitsTwoNamingTheFormatsItWrites() {
+    CliRun r = CliRun.of("demand", "-f", "x.yaml", "-o", "html");
+    assertEquals(2, r.code());
+    assertTrue(
+        r.err().startsWith("error: -o html is not available for demand (expected one of: text,"
+            + " json)"),
         r.err());
   }
 
@@ -152,5 +162,23 @@ class MainTest {
       assertFalse(r.err().contains("\tat "), r.err());
       assertFalse(r.err().contains("Exception"), r.err());
     }
+  }
+
+  @Test
+  void run_colourOn_coloursOnlyTheSeverityWord() {
+    java.io.ByteArrayOutputStream err = new java.io.ByteArrayOutputStream();
+    int code =
+        Main.run(
+            new String[] {"plan", "--worker", "cpu=4,memory=8Gi"},
+            new java.io.ByteArrayInputStream(new byte[0]),
+            new java.io.PrintStream(new java.io.ByteArrayOutputStream(), true),
+            new java.io.PrintStream(err, true, java.nio.charset.StandardCharsets.UTF_8),
+            java.nio.file.Path.of("").toAbsolutePath(),
+            true);
+    assertEquals(2, code);
+    assertTrue(
+        err.toString(java.nio.charset.StandardCharsets.UTF_8)
+            .startsWith("\u001b[31merror\u001b[0m: plan needs at least one -f/--filename"),
+        err.toString(java.nio.charset.StandardCharsets.UTF_8));
   }
 }
