@@ -128,6 +128,8 @@ class ClusterReaderFaultTest {
     assertTrue(reqs.stream().allMatch(r -> r.getMethod().equals("GET")));
     assertEquals(6, reqs.stream().filter(r -> r.getPath().startsWith("/api/v1/pods")).count());
     assertTrue(m.missing().isEmpty() && m.warnings().isEmpty(), m.warnings().toString());
+    // The snapshot of the paged read reads back equal.
+    assertEquals(m, SnapshotFile.parse(SnapshotFile.toText(m), "paged.json"));
   }
 
   @Test
