@@ -22,7 +22,6 @@ import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.Optional;
-import java.util.Set;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
 
@@ -262,9 +261,5 @@ class ClusterReaderFaultTest {
 
   static String message(InputException ex) {
     return ex.diagnostics().get(0).format();
-  }
-
-  static Set<ResourceType> all() {
-    return EnumSet.allOf(ResourceType.class);
   }
 }
