@@ -20,6 +20,7 @@ import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
 import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
+import dev.numafit.report.PlanMarkdownWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
@@ -129,7 +130,8 @@ final class Pipeline {
     Map<String, BigDecimal> costs = new TreeMap<>();
     TreeMap<String, PlanHost> hosts = new TreeMap<>();
     // The fill charts need to know which pods share a worker.
-    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
+    boolean placement =
+        o.placement() || o.format() == ReportFormat.HTML || o.format() == ReportFormat.MARKDOWN;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -221,6 +223,7 @@ final class Pipeline {
       case TEXT -> new PlanTextWriter();
       case JSON -> new PlanJsonWriter();
       case HTML -> new PlanHtmlWriter();
+      case MARKDOWN -> new PlanMarkdownWriter();
     };
   }
 
@@ -230,7 +233,7 @@ final class Pipeline {
       case TEXT -> new DemandTextWriter();
       case JSON -> new DemandJsonWriter();
       // DemandCommand refuses these formats before anything is read.
-      case HTML -> throw new IllegalArgumentException("demand writes text or json");
+      case HTML, MARKDOWN -> throw new IllegalArgumentException("demand writes text or json");
     };
   }
 
