@@ -287,7 +287,6 @@ public final class ManifestReader {
     }
 
     void readText(String file, String text, boolean json) {
-      List<LocatedDocument> docs = new ArrayList<>();
       if (text.startsWith("\uFEFF")) {
         text = text.substring(1);
       }
@@ -295,9 +294,10 @@ public final class ManifestReader {
         diags.add(Diagnostic.warning(new SourceRef(file, 0), "empty file"));
         return;
       }
-      List<Diagnostic> fileDiags = new ArrayList<>();
-      DocumentReader.Outcome o = documents.read(file, text, json, docs::add, fileDiags);
-      finishText(file, text, docs, o, fileDiags);
+      // Each document is read as soon as it is parsed, so its tree and line table become garbage
+      // at once instead of all of them staying alive until the end of the file.
+      DocumentReader.Outcome o = documents.read(file, text, json, this::readDocument, diags);
+      finishText(file, text, List.of(), o, List.of());
     }
 
     void finishText(
@@ -317,20 +317,22 @@ public final class ManifestReader {
                         ? " empty or comment-only document"
                         : " empty or comment-only documents")));
       }
-      for (LocatedDocument doc : docs) {
-        try {
-          document(doc);
-        } catch (RuntimeException e) {
-          // A safety net: whatever an unexpected document does, the rest is still read.
-          diags.add(
-              Diagnostic.error(
-                  new SourceRef(doc.file(), doc.startLine()),
-                  "cannot read this document ("
-                      + e.getClass().getSimpleName()
-                      + ": "
-                      + e.getMessage()
-                      + ")"));
-        }
+      docs.forEach(this::readDocument);
+    }
+
+    void readDocument(LocatedDocument doc) {
+      try {
+        document(doc);
+      } catch (RuntimeException e) {
+        // A safety net: whatever an unexpected document does, the rest is still read.
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(doc.file(), doc.startLine()),
+                "cannot read this document ("
+                    + e.getClass().getSimpleName()
+                    + ": "
+                    + e.getMessage()
+                    + ")"));
       }
     }
 
