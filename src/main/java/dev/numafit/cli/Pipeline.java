@@ -193,8 +193,9 @@ final class Pipeline {
   }
 
   private static Demand readDemand(
-      List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
-    return new ManifestReader().read(files, console.in(), new ReadOptions(replicas, includeCustom));
+      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
+    return new ManifestReader()
+        .read(files, console.in(), new ReadOptions(replicas.mode(), includeCustom));
   }
 
   /**

@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.KubeletReserve;
@@ -34,7 +33,7 @@ public record PlanOptions(
     Optional<Resources> worker,
     KubeletReserve reserve,
     Resources perWorker,
-    ReplicaMode replicas,
+    ReplicasOption replicas,
     int hostFailures,
     int maxUtilizationPct,
     BigDecimal growth,
