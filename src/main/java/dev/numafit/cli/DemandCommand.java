@@ -1,5 +1,6 @@
 package dev.numafit.cli;
 
+import dev.numafit.report.ReportFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -61,6 +62,7 @@ public final class DemandCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    common.requireFormat("demand", ReportFormat.TEXT, ReportFormat.JSON);
     return Pipeline.demand(DemandOptions.check(this), root.console());
   }
 }

@@ -118,7 +118,17 @@ class MainTest {
         r.err()
             .startsWith(
                 "error: Invalid value for option '--output': unknown output format \"yaml\""
-                    + " (expected one of: text, json)"),
+                    + " (expected one of: text, json, html)"),
+        r.err());
+  }
+
+  @Test
+  void run_demandAsHtml_exitsTwoNamingTheFormatsItWrites() {
+    CliRun r = CliRun.of("demand", "-f", "x.yaml", "-o", "html");
+    assertEquals(2, r.code());
+    assertTrue(
+        r.err().startsWith("error: -o html is not available for demand (expected one of: text,"
+            + " json)"),
         r.err());
   }
 
