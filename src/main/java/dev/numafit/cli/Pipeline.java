@@ -130,7 +130,8 @@ final class Pipeline {
               o.growth(),
               o.placement(),
               notes,
-              planWarnings);
+              planWarnings,
+              o.placementOptions());
       plans.add(planner.plan(demand, in));
       shapes.add(shape);
     }
@@ -152,7 +153,8 @@ final class Pipeline {
               o.growth(),
               o.placement(),
               List.of(ShapeDeriver.topologyAdvice(shape)),
-              planWarnings);
+              planWarnings,
+              o.placementOptions());
       plans.add(planner.plan(demand, in));
       shapes.add(shape);
     }
