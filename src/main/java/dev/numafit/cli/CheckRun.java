@@ -58,7 +58,7 @@ final class CheckRun {
   static int run(CheckSettings s, Console console) throws InputException {
     PlanOptions po = s.plan();
     ReadOptions read = new ReadOptions(
-        po.replicas(),
+        po.replicas().mode(),
         po.includeCustom());
     ManifestReader reader = new ManifestReader();
     ManifestRead head = reader.readLocated(po.files(), console.in(), read);

@@ -18,11 +18,13 @@ import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.DemandJsonWriter;
 import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.Allocatable;
@@ -78,6 +80,9 @@ final class Pipeline {
     List<Plan> plans = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
+    TreeMap<String, PlanHost> hosts = new TreeMap<>();
+    // The fill charts need to know which pods share a worker.
+    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -128,12 +133,13 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               notes,
               planWarnings,
               o.placementOptions());
       plans.add(planner.plan(demand, in));
       shapes.add(shape);
+      hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
     if (o.hostProfiles().isEmpty()) {
       WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
@@ -151,7 +157,7 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
               planWarnings,
               o.placementOptions());
@@ -166,7 +172,7 @@ final class Pipeline {
     }
     Optional<PlanComparison> comparison =
         plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, hosts);
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
@@ -183,6 +189,7 @@ final class Pipeline {
     return switch (format) {
       case TEXT -> new PlanTextWriter();
       case JSON -> new PlanJsonWriter();
+      case HTML -> new PlanHtmlWriter();
     };
   }
 
@@ -191,12 +198,15 @@ final class Pipeline {
     return switch (format) {
       case TEXT -> new DemandTextWriter();
       case JSON -> new DemandJsonWriter();
+      // DemandCommand refuses these formats before anything is read.
+      case HTML -> throw new IllegalArgumentException("demand writes text or json");
     };
   }
 
   private static Demand readDemand(
-      List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
-    return new ManifestReader().read(files, console.in(), new ReadOptions(replicas, includeCustom));
+      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
+    return new ManifestReader()
+        .read(files, console.in(), new ReadOptions(replicas.mode(), includeCustom));
   }
 
   /**

@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -108,7 +107,7 @@ public final class PlanCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(
       names = "--host-failures",

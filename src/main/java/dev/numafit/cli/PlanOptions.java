@@ -1,7 +1,6 @@
 package dev.numafit.cli;
 
 import dev.numafit.demand.PlacementRules;
-import dev.numafit.demand.ReplicaMode;
 import dev.numafit.plan.PlacementOptions;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.resource.Resources;
@@ -37,7 +36,7 @@ public record PlanOptions(
     Optional<Resources> worker,
     KubeletReserve reserve,
     Resources perWorker,
-    ReplicaMode replicas,
+    ReplicasOption replicas,
     int hostFailures,
     int maxUtilizationPct,
     BigDecimal growth,

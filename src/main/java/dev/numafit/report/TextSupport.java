@@ -5,9 +5,7 @@ final class TextSupport {
   static final int WIDTH = 80;
 
   /** The caution printed at the end of every plan, in text output. */
-  static final String CAUTION =
-      "Caution: sized from declared requests. Verify against your hardware's documentation and"
-          + " a load test; follow your organisation's change practice.";
+  static final String CAUTION = Caution.TEXT;
 
   private TextSupport() {}
 
