@@ -184,7 +184,8 @@ final class Pipeline {
               o.growth(),
               placement,
               notes,
-              planWarnings);
+              planWarnings,
+              o.placementOptions());
       inputs.add(in);
       shapes.add(shape);
       hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
@@ -207,7 +208,8 @@ final class Pipeline {
               o.growth(),
               placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
-              planWarnings);
+              planWarnings,
+              o.placementOptions());
       inputs.add(in);
       shapes.add(shape);
     }
