@@ -51,10 +51,10 @@ class MainTest {
   void run_noCommand_exitsTwoWithMessage() {
     CliRun r = CliRun.of();
     assertEquals(2, r.code());
-    assertEquals(
-        "error: missing command (expected one of: demand, plan, check, snapshot, review, completion, profile, help)\n"
-            + "Run 'numafit --help' for usage.\n",
-        r.err());
+    // The list comes from the registered subcommands, so it grows with them.
+    assertTrue(
+        r.err().startsWith("error: missing command (expected one of: demand, plan, "), r.err());
+    assertTrue(r.err().endsWith(", help)\nRun 'numafit --help' for usage.\n"), r.err());
     assertEquals("", r.out());
   }
 
