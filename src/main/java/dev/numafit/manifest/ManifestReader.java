@@ -4,6 +4,7 @@ import dev.numafit.demand.Admission;
 import dev.numafit.demand.Demand;
 import dev.numafit.demand.EffectivePod;
 import dev.numafit.demand.LimitDefaults;
+import dev.numafit.demand.PlacementRules;
 import dev.numafit.demand.PodArithmetic;
 import dev.numafit.demand.PodModel;
 import dev.numafit.demand.ReplicaRules;
@@ -140,7 +141,10 @@ public final class ManifestReader {
 
   /** Where a candidate's pod template, replica count and containers are written. */
   private record Lines(
-      SourceRef template, Optional<SourceRef> replicas, SortedMap<String, SourceRef> containers) {}
+      SourceRef template,
+      Optional<SourceRef> replicas,
+      SortedMap<String, SourceRef> containers,
+      PlacementRules rules) {}
 
   /**
    * The lines of a pod spec at {@code specPtr}: the template, each container's {@code resources}
@@ -170,7 +174,15 @@ public final class ManifestReader {
         specPtr.endsWith("/spec") && !specPtr.equals("/spec")
             ? specPtr.substring(0, specPtr.length() - 5)
             : specPtr;
-    return new Lines(new SourceRef(doc.file(), doc.keyLine(templatePtr)), replicas, containers);
+    return new Lines(
+        new SourceRef(doc.file(), doc.keyLine(templatePtr)),
+        replicas,
+        containers,
+        PlacementReader.read(
+            doc.at(specPtr),
+            doc.at(
+                (specPtr.endsWith("/spec") ? specPtr.substring(0, specPtr.length() - 5) : specPtr)
+                    + "/metadata/labels")));
   }
 
   private record Autoscaler(
@@ -1027,7 +1039,15 @@ public final class ManifestReader {
         }
         sources.put(c.id(), new WorkloadSource(at.template(), replicasAt, at.containers(), pod));
       }
-      return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
+      return new Workload(
+          c.id(),
+          c.source(),
+          replicas,
+          eff,
+          c.perWorker(),
+          c.custom(),
+          flags,
+          at == null ? PlacementRules.NONE : at.rules());
     }
   }
 

@@ -73,7 +73,11 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
         "Workers needed",
         List.of(p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")"));
     if (p.hostsNeeded().isPresent()) {
-      kv(sb, "Hosts needed", List.of(Integer.toString(p.hostsNeeded().getAsInt())));
+      String hostsLine = Integer.toString(p.hostsNeeded().getAsInt());
+      if (p.hostsNeededWithoutFailures().isPresent()) {
+        hostsLine += " (" + p.hostsNeededWithoutFailures().getAsInt() + " without failures)";
+      }
+      kv(sb, "Hosts needed", List.of(hostsLine));
     }
     List<String> util = new ArrayList<>();
     p.utilization().forEach((k, v) -> util.add(k + " " + Units.percent(v)));
