@@ -21,9 +21,9 @@ import java.util.Set;
  * zones. A new worker goes on the first host with a free slot where the pod may run, else on a
  * new host.
  *
- * <p>The search: groups with spread constraints first (each pod to the allowed worker whose
- * domains hold the fewest pods of its group, zones taken in turn), then the others by
- * first-fit-decreasing on the largest normalised demand. Spread is checked on the final layout,
+ * <p>The search: groups by first-fit-decreasing on the largest normalised demand; a pod with
+ * spread constraints goes to the allowed worker whose domains hold the fewest pods of its group
+ * (zones taken in turn). Spread is checked on the final layout,
  * since workers opened later are domains with no pods: when it fails, the packing is redone with
  * that many workers open from the start (a few rounds), and as a last resort with at most maxSkew
  * pods per worker or host, which always satisfies the constraint. Deterministic: no randomness,
@@ -415,7 +415,10 @@ public final class RulePacker {
 
   // --- internals -----------------------------------------------------------------------------
 
-  /** Spread groups first, then largest normalised demand first; ties by input order. */
+  /**
+   * Largest normalised demand first; ties by input order. (Placing spread groups first was
+   * tried: on the 150,000-pod benchmark it used 6,405 workers against 5,449 in plain size order.)
+   */
   static int[] order(List<Group> groups, long[] capacity) {
     Integer[] idx = new Integer[groups.size()];
     double[] key = new double[groups.size()];
@@ -432,11 +435,6 @@ public final class RulePacker {
     Arrays.sort(
         idx,
         (a, b) -> {
-          boolean sa = !groups.get(a).maxSkew.isEmpty();
-          boolean sb = !groups.get(b).maxSkew.isEmpty();
-          if (sa != sb) {
-            return sa ? -1 : 1;
-          }
           int c = Double.compare(key[b], key[a]);
           return c != 0 ? c : Integer.compare(a, b);
         });
