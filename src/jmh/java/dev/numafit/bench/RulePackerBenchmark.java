@@ -88,6 +88,13 @@ public class RulePackerBenchmark {
           "%d pods: %d workers, %d hosts, %d unplaced, %d ms (best of 3), violations %d%n",
           n, r.bins(), r.hosts(), r.unplaced().size(), best / 1_000_000,
           RulePacker.violations(g, PackerBenchmark.ROOM, TOPOLOGY, r).size());
+      if (n <= 50_000) {
+        long t0 = System.nanoTime();
+        RulePacker.FailureResult f =
+            RulePacker.hostsToSurvive(g, PackerBenchmark.ROOM, TOPOLOGY, r, 1, false, 4);
+        System.out.printf(
+            "  --host-failures 1: %s, %d ms (one pass)%n", f, (System.nanoTime() - t0) / 1_000_000);
+      }
     }
   }
 }

@@ -518,6 +518,9 @@ public final class RulePacker {
     final int[] binOfItem;
     /** Per group, the worker to start looking from (see {@link #place}). */
     final int[] resume;
+    int hostsWithWorkers;
+    int zonesWithWorkers;
+    final int[] hostsInZone;
     /** When set, no host at or beyond this number may be used, and lost hosts not at all. */
     int hostLimit = Integer.MAX_VALUE;
     boolean[] lostHosts;
@@ -539,6 +542,7 @@ public final class RulePacker {
       this.binOfItem = new int[n];
       Arrays.fill(binOfItem, -1);
       this.resume = new int[groups.size()];
+      this.hostsInZone = new int[topo.zones()];
     }
 
     int bins() {
@@ -553,7 +557,14 @@ public final class RulePacker {
 
     int openWorker(int h) {
       ensureHost(h);
-      workersOnHost.set(h, workersOnHost.get(h) + 1);
+      int before = workersOnHost.get(h);
+      workersOnHost.set(h, before + 1);
+      if (before == 0) {
+        hostsWithWorkers++;
+        if (hostsInZone[topo.zoneOf(h)]++ == 0) {
+          zonesWithWorkers++;
+        }
+      }
       if (nBins == hostOf.length) {
         int cap = Math.max(16, nBins * 2);
         hostOf = Arrays.copyOf(hostOf, cap);
@@ -608,28 +619,11 @@ public final class RulePacker {
 
     /** Domains of each kind that have workers now (the scheduler's domains). */
     private int domains(Domain dom) {
-      switch (dom) {
-        case WORKER:
-          return nBins;
-        case HOST: {
-          int n = 0;
-          for (int c : workersOnHost) {
-            n += c > 0 ? 1 : 0;
-          }
-          return n;
-        }
-        default: {
-          boolean[] z = new boolean[topo.zones()];
-          int n = 0;
-          for (int h = 0; h < workersOnHost.size(); h++) {
-            if (workersOnHost.get(h) > 0 && !z[topo.zoneOf(h)]) {
-              z[topo.zoneOf(h)] = true;
-              n++;
-            }
-          }
-          return n;
-        }
-      }
+      return switch (dom) {
+        case WORKER -> nBins;
+        case HOST -> hostsWithWorkers;
+        case ZONE -> zonesWithWorkers;
+      };
     }
 
     /** The smallest count of the group's pods over the domains that have workers. */
@@ -747,9 +741,9 @@ public final class RulePacker {
       long bestKey = Long.MAX_VALUE;
       // Loads and counts only grow while packing, so a worker that could not take a pod of this
       // group (no room, or already one under anti-affinity) cannot later: later pods of the group
-      // start where the last one was placed. Spread and zone turns can re-allow a worker, so
-      // they scan from the start; so does rescheduling, which starts from a fresh layout.
-      boolean monotone = !rescheduling && gr.maxSkew.isEmpty() && zone < 0;
+      // start where the last one was placed (also when rescheduling: the layout only fills up).
+      // Spread and zone turns can re-allow a worker, so they scan from the start.
+      boolean monotone = gr.maxSkew.isEmpty() && zone < 0;
       // With spread over workers or hosts, the first worker that fits and whose worker and host
       // hold none of the group's pods is the best choice; workers before the last such one had
       // pods of the group (on them or their host) or no room, and still do, since counts and
@@ -810,9 +804,9 @@ public final class RulePacker {
       add(g, best);
       if (!rescheduling) {
         binOfItem[starts[g] + j] = best;
-        if (monotone || (workerSpreadOnly && bestKey == 0)) {
-          resume[g] = best;
-        }
+      }
+      if (monotone || (workerSpreadOnly && bestKey == 0)) {
+        resume[g] = best;
       }
       return best;
     }
