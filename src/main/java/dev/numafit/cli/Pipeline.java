@@ -20,6 +20,7 @@ import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
 import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
+import dev.numafit.report.PlanMarkdownWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
@@ -75,14 +76,62 @@ final class Pipeline {
     Map<Path, ProfileLoad> profiles = readProfiles(o.hostProfiles(), profileErrors);
     List<Diagnostic> warnings =
         new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
-    ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
+    Sized sized = size(o, profiles);
+    warnings.addAll(sized.warnings());
     Planner planner = new Planner();
     List<Plan> plans = new ArrayList<>();
+    for (PlanInput in : sized.inputs()) {
+      plans.add(planner.plan(demand, in));
+    }
+    List<WorkerShape> shapes = sized.shapes();
+    Map<String, BigDecimal> costs = sized.costs();
+    for (Plan p : plans) {
+      warnings.addAll(p.warnings());
+    }
+    Optional<PlanComparison> comparison =
+        plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, sized.hosts());
+    if (o.kubeletConfigDir().isPresent()) {
+      writeKubeletConfigs(o, plans, shapes);
+    }
+    ReportWriter<PlanReport> writer = planWriter(o.format());
+    if (o.format() == ReportFormat.TEXT) {
+      report.warnings().forEach(console::report);
+    }
+    ReportOutput.write(writer.render(report), o.out(), console);
+    return ExitCode.OK.code();
+  }
+
+  /**
+   * What sizing needs besides the demand, shared by {@code plan} and {@code check}: one plan input
+   * per host profile in order (or one for a bare --worker), the worker shape of each, the profiles'
+   * relative costs, each profile's host and worker layout (for the HTML report), and the
+   * profiles' warnings.
+   */
+  record Sized(
+      List<PlanInput> inputs,
+      List<WorkerShape> shapes,
+      Map<String, BigDecimal> costs,
+      TreeMap<String, PlanHost> hosts,
+      List<Diagnostic> warnings) {}
+
+  /**
+   * The worker shape, allocatable, workers per host and spanning rooms for each host profile (or
+   * the bare --worker).
+   *
+   * @throws UsageException when a profile leaves no room for a worker or the --worker does not
+   *     fit its host
+   */
+  static Sized size(PlanOptions o, Map<Path, ProfileLoad> profiles) {
+    ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
+    List<PlanInput> inputs = new ArrayList<>();
+    List<Diagnostic> warnings = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
     TreeMap<String, PlanHost> hosts = new TreeMap<>();
     // The fill charts need to know which pods share a worker.
-    boolean placement = o.placement() || o.format() == ReportFormat.HTML;
+    boolean placement =
+        o.placement() || o.format() == ReportFormat.HTML || o.format() == ReportFormat.MARKDOWN;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -137,7 +186,7 @@ final class Pipeline {
               notes,
               planWarnings,
               o.placementOptions());
-      plans.add(planner.plan(demand, in));
+      inputs.add(in);
       shapes.add(shape);
       hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
@@ -161,27 +210,13 @@ final class Pipeline {
               List.of(ShapeDeriver.topologyAdvice(shape)),
               planWarnings,
               o.placementOptions());
-      plans.add(planner.plan(demand, in));
+      inputs.add(in);
       shapes.add(shape);
     }
     if (!problems.isEmpty()) {
       throw new UsageException(problems);
     }
-    for (Plan p : plans) {
-      warnings.addAll(p.warnings());
-    }
-    Optional<PlanComparison> comparison =
-        plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings, hosts);
-    if (o.kubeletConfigDir().isPresent()) {
-      writeKubeletConfigs(o, plans, shapes);
-    }
-    ReportWriter<PlanReport> writer = planWriter(o.format());
-    if (o.format() == ReportFormat.TEXT) {
-      report.warnings().forEach(console::report);
-    }
-    ReportOutput.write(writer.render(report), o.out(), console);
-    return ExitCode.OK.code();
+    return new Sized(inputs, shapes, costs, hosts, warnings);
   }
 
   /** The writer of each format for plan reports. */
@@ -190,6 +225,7 @@ final class Pipeline {
       case TEXT -> new PlanTextWriter();
       case JSON -> new PlanJsonWriter();
       case HTML -> new PlanHtmlWriter();
+      case MARKDOWN -> new PlanMarkdownWriter();
     };
   }
 
@@ -199,7 +235,7 @@ final class Pipeline {
       case TEXT -> new DemandTextWriter();
       case JSON -> new DemandJsonWriter();
       // DemandCommand refuses these formats before anything is read.
-      case HTML -> throw new IllegalArgumentException("demand writes text or json");
+      case HTML, MARKDOWN -> throw new IllegalArgumentException("demand writes text or json");
     };
   }
 
@@ -230,7 +266,7 @@ final class Pipeline {
    * A path that does not exist is a usage error whatever --skip-invalid says: the user meant
    * another path.
    */
-  private static void checkPathsExist(List<String> files) {
+  static void checkPathsExist(List<String> files) {
     List<String> problems = new ArrayList<>();
     for (String f : files) {
       if (!f.equals("-") && !Files.exists(Path.of(f))) {
@@ -243,7 +279,7 @@ final class Pipeline {
   }
 
   /** Reads every profile, collecting the errors of all of them. */
-  private static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
+  static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
     Map<Path, ProfileLoad> loads = new LinkedHashMap<>();
     HostProfileReader reader = new HostProfileReader();
     for (Path p : paths) {

@@ -49,10 +49,13 @@ public final class PodArithmetic {
   /**
    * The pod's effective requests and limits, QoS class, exclusive CPUs and flags.
    *
-   * <p>Each container amount is first rounded up to a thousandth of its unit, as a Kubernetes
-   * quantity holds at most three decimals (0.1m becomes 1m). Sums are then exact; the pod total is
-   * rounded up once, CPU to millicores and every other resource to a whole unit, as the scheduler
-   * reads it. Requests do not include the {@code pods} count.
+   * <p>Each container amount is first rounded up to a billionth of its unit (1n), as the API
+   * server's quantity parser does with finer values. Sums are then exact; the pod total is rounded
+   * up once, CPU to millicores and every other resource to a whole unit, as the scheduler reads it
+   * (it sums the containers' quantities and reads the total with MilliValue/Value). So three
+   * containers of 0.1m each ask for 1m, not 3m: kubectl describe node agrees (see the
+   * differential test). A CPU amount finer than 1m is flagged. Requests do not include the {@code
+   * pods} count.
    */
   public static EffectivePod effective(PodModel pod) {
     Set<String> flags = new LinkedHashSet<>();
@@ -365,8 +368,10 @@ public final class PodArithmetic {
     TreeMap<String, BigDecimal> out = new TreeMap<>();
     m.forEach(
         (k, v) -> {
-          BigDecimal r = v.setScale(3, RoundingMode.CEILING);
-          if (k.equals(Resources.CPU) && r.compareTo(v) != 0) {
+          // The API server keeps quantities to 1n and rounds finer ones up (apimachinery
+          // resource.ParseQuantity); rounding to 1m happens only on the pod total.
+          BigDecimal r = v.setScale(9, RoundingMode.CEILING);
+          if (k.equals(Resources.CPU) && v.setScale(3, RoundingMode.CEILING).compareTo(v) != 0) {
             flags.add(
                 "request".equals(what)
                     ? CPU_FINER_THAN_1M

@@ -32,8 +32,7 @@ final class DocumentReader {
 
   private final YAMLMapper yaml =
       YAMLMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
-  private final JsonMapper json =
-      JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+  private JsonMapper json; // built on first use: most inputs are YAML only
 
   /** A key given twice in one mapping, where the second one is. */
   private record DuplicateKey(int line, String name) {}
@@ -60,7 +59,7 @@ final class DocumentReader {
     String rest = text;
     while (rest != null) {
       String next = null;
-      try (JsonParser p = asJson ? json.createParser(rest) : yaml.createParser(rest)) {
+      try (JsonParser p = asJson ? json().createParser(rest) : yaml.createParser(rest)) {
         JsonToken t;
         while ((t = p.nextToken()) != null) {
           int start = offset + line(p.currentTokenLocation());
@@ -102,6 +101,13 @@ final class DocumentReader {
       rest = next;
     }
     return outcome;
+  }
+
+  private JsonMapper json() {
+    if (json == null) {
+      json = JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
+    }
+    return json;
   }
 
   private static int line(TokenStreamLocation loc) {

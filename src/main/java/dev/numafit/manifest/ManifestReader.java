@@ -70,9 +70,13 @@ public final class ManifestReader {
   public static final String STDIN = "<stdin>";
 
   private static final String GUESS_FLAG = "sized from a custom resource: a guess";
-  // Shared: its deserializer cache is costly to build and safe to use from any thread.
-  private static final KubernetesSerialization K8S = new KubernetesSerialization();
-  private final KubernetesSerialization k8s = K8S;
+  /**
+   * fabric8's serialization, shared: its deserializer cache is costly to build and safe to use
+   * from any thread. Built on first use, as plain workloads ({@link PlainWorkloads}) never need it.
+   */
+  private static final class K8s {
+    static final KubernetesSerialization INSTANCE = new KubernetesSerialization();
+  }
   private final DocumentReader documents = new DocumentReader();
 
   /**
@@ -299,7 +303,6 @@ public final class ManifestReader {
     }
 
     void readText(String file, String text, boolean json) {
-      List<LocatedDocument> docs = new ArrayList<>();
       if (text.startsWith("\uFEFF")) {
         text = text.substring(1);
       }
@@ -307,9 +310,10 @@ public final class ManifestReader {
         diags.add(Diagnostic.warning(new SourceRef(file, 0), "empty file"));
         return;
       }
-      List<Diagnostic> fileDiags = new ArrayList<>();
-      DocumentReader.Outcome o = documents.read(file, text, json, docs::add, fileDiags);
-      finishText(file, text, docs, o, fileDiags);
+      // Each document is read as soon as it is parsed, so its tree and line table become garbage
+      // at once instead of all of them staying alive until the end of the file.
+      DocumentReader.Outcome o = documents.read(file, text, json, this::readDocument, diags);
+      finishText(file, text, List.of(), o, List.of());
     }
 
     void finishText(
@@ -329,20 +333,22 @@ public final class ManifestReader {
                         ? " empty or comment-only document"
                         : " empty or comment-only documents")));
       }
-      for (LocatedDocument doc : docs) {
-        try {
-          document(doc);
-        } catch (RuntimeException e) {
-          // A safety net: whatever an unexpected document does, the rest is still read.
-          diags.add(
-              Diagnostic.error(
-                  new SourceRef(doc.file(), doc.startLine()),
-                  "cannot read this document ("
-                      + e.getClass().getSimpleName()
-                      + ": "
-                      + e.getMessage()
-                      + ")"));
-        }
+      docs.forEach(this::readDocument);
+    }
+
+    void readDocument(LocatedDocument doc) {
+      try {
+        document(doc);
+      } catch (RuntimeException e) {
+        // A safety net: whatever an unexpected document does, the rest is still read.
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(doc.file(), doc.startLine()),
+                "cannot read this document ("
+                    + e.getClass().getSimpleName()
+                    + ": "
+                    + e.getMessage()
+                    + ")"));
       }
     }
 
@@ -503,11 +509,12 @@ public final class ManifestReader {
       String template = spec + "/template/spec";
       switch (k) {
         case POD -> {
-          Pod o = convert(node, Pod.class, ptr, ctx);
-          if (o == null) {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          Pod o = plain != null ? null : convert(node, Pod.class, ptr, ctx);
+          if (plain == null && o == null) {
             return false;
           }
-          PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
+          PodModel pod = PodSpecs.toModel(plain != null ? plain.podSpec() : o.getSpec(), spec, ctx);
           put(
               key,
               new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false),
@@ -515,6 +522,11 @@ public final class ManifestReader {
               lines(ctx.doc, spec, null));
         }
         case DEPLOYMENT -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           Deployment o = convert(node, Deployment.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -531,6 +543,11 @@ public final class ManifestReader {
               ctx);
         }
         case REPLICA_SET -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           ReplicaSet o = convert(node, ReplicaSet.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -547,6 +564,11 @@ public final class ManifestReader {
               ctx);
         }
         case STATEFUL_SET -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           StatefulSet o = convert(node, StatefulSet.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -563,6 +585,11 @@ public final class ManifestReader {
               ctx);
         }
         case REPLICATION_CONTROLLER -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           ReplicationController o = convert(node, ReplicationController.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -579,11 +606,15 @@ public final class ManifestReader {
               ctx);
         }
         case DAEMON_SET -> {
-          DaemonSet o = convert(node, DaemonSet.class, ptr, ctx);
-          if (o == null) {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          DaemonSet o = plain != null ? null : convert(node, DaemonSet.class, ptr, ctx);
+          if (plain == null && o == null) {
             return false;
           }
-          PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
+          PodTemplateSpec t =
+              plain != null
+                  ? plain.template()
+                  : o.getSpec() == null ? null : o.getSpec().getTemplate();
           PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
           put(
               key,
@@ -788,7 +819,7 @@ public final class ManifestReader {
 
     <T> T convert(JsonNode node, Class<T> type, String ptr, ObjectContext ctx) {
       try {
-        return k8s.convertValue(node, type);
+        return K8s.INSTANCE.convertValue(node, type);
       } catch (RuntimeException e) {
         DatabindException de = null;
         for (Throwable c = e; c != null; c = c.getCause()) {

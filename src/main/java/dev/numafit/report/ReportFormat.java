@@ -14,7 +14,9 @@ public enum ReportFormat {
    * One self-contained HTML page with inline SVG pictures and a table beside each; warnings are in
    * the page.
    */
-  HTML("html");
+  HTML("html"),
+  /** The HTML report's sections as GitHub-flavoured Markdown tables, without the pictures. */
+  MARKDOWN("markdown");
 
   private final String label;
 

@@ -118,7 +118,7 @@ class MainTest {
         r.err()
             .startsWith(
                 "error: Invalid value for option '--output': unknown output format \"yaml\""
-                    + " (expected one of: text, json, html)"),
+                    + " (expected one of: text, json, html, markdown)"),
         r.err());
   }
 

@@ -10,6 +10,8 @@ import static dev.numafit.demand.Pods.milli;
 import static dev.numafit.demand.Pods.pod;
 import static dev.numafit.demand.Pods.sidecar;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import java.math.BigDecimal;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -215,6 +217,35 @@ class PodArithmeticTest {
             pod(List.of(app("c", map("cpu", milli(1).divide(cores("10"))), map()))));
     assertEquals(1, e.requests().get("cpu"));
     assertTrue(e.flags().contains(PodArithmetic.CPU_FINER_THAN_1M));
+  }
+
+  @Test
+  void effective_threeContainersOfATenthMillicore_sumRoundedUpOnceToOneMillicore() {
+    // Regression (found by the kubectl differential test): kubectl describe node prints 300u for
+    // three containers of 0.1m, and the scheduler reads the pod total with MilliValue, rounding
+    // the exact sum up once: 1m, not 3m (pkg/scheduler/framework/types.go, calculateResource).
+    BigDecimal tenth = milli(1).divide(cores("10"));
+    EffectivePod e =
+        PodArithmetic.effective(
+            pod(
+                List.of(
+                    app("a", map("cpu", tenth), map()),
+                    app("b", map("cpu", tenth), map()),
+                    app("c", map("cpu", tenth), map()))));
+    assertEquals(1, e.requests().get("cpu"));
+    assertTrue(e.flags().contains(PodArithmetic.CPU_FINER_THAN_1M));
+  }
+
+  @Test
+  void effective_amountFinerThanOneNano_eachRoundedUpToOneNanoBeforeSumming() {
+    // apimachinery resource.ParseQuantity rounds a value finer than 1n up to 1n when the API
+    // server reads the pod: memory 0.5000000004 is kept as 500000001n and 0.4999999996 as
+    // 500000000n; their sum 1000000001n is read as 2 bytes (an exact sum of 1.0 would be 1).
+    EffectivePod e =
+        PodArithmetic.effective(
+            pod(List.of(app("a", map("memory", cores("0.5000000004")), map()),
+                app("b", map("memory", cores("0.4999999996")), map()))));
+    assertEquals(2, e.requests().get("memory"));
   }
 
   @Test

@@ -8,7 +8,6 @@ import dev.numafit.demand.Workload;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.host.HostFacts;
 import dev.numafit.host.HostProfile;
-import dev.numafit.host.MemoryChannel;
 import dev.numafit.host.NodeFacts;
 import dev.numafit.host.NumaNode;
 import dev.numafit.plan.Oversize;
@@ -19,10 +18,10 @@ import dev.numafit.report.DemandTotals;
 import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.TopologyWords;
 import dev.numafit.report.Units;
 import dev.numafit.report.WorkerFill;
 import dev.numafit.resource.Resources;
-import dev.numafit.shape.HostLayout;
 import dev.numafit.shape.ShapeDeriver;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
@@ -121,7 +120,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
       report.demand().skippedByKind().forEach((k, v) -> parts.add(esc(k) + " " + v));
       sb.append(String.join(", ", parts)).append(".</p>\n");
     }
-    sb.append("<details><summary>Workloads (").append(report.demand().workloads().size())
+    sb.append("<h3>Workloads</h3>\n<details><summary>Every workload (").append(report.demand().workloads().size())
         .append(")</summary>\n<table>\n<thead><tr><th scope=\"col\">Workload</th>")
         .append("<th scope=\"col\">Source</th><th scope=\"col\">Pods at peak</th>")
         .append("<th scope=\"col\">Requests per pod</th></tr></thead>\n<tbody>\n");
@@ -174,7 +173,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     sb.append("<section id=\"comparison\">\n<h2>Host profiles compared</h2>\n<div class=\"pair\">")
         .append("<figure>").append(Charts.comparison("cmp", names, panels))
         .append("<figcaption>Each bar is labelled with its value.</figcaption></figure>\n");
-    sb.append("<table class=\"comparison-table\">\n<caption>Host profiles compared</caption>\n")
+    sb.append("<div class=\"scroll\"><table class=\"comparison-table\">\n<caption>Host profiles compared</caption>\n")
         .append("<thead><tr><th scope=\"col\">Host profile</th><th scope=\"col\">vCPU</th>")
         .append("<th scope=\"col\">Memory</th><th scope=\"col\">Workers per host</th>")
         .append("<th scope=\"col\">Workers</th><th scope=\"col\">Hosts</th>")
@@ -209,7 +208,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
               : "<td>not given</td>")
           .append("</tr>\n");
     }
-    sb.append("</tbody></table></div>\n<p>Cost total is the profile's relative cost per host")
+    sb.append("</tbody></table></div></div>\n<p>Cost total is the profile's relative cost per host")
         .append(" times hosts needed.</p>\n</section>\n");
   }
 
@@ -282,7 +281,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     names.addAll(p.perWorkerDemand().names());
     names.addAll(p.room().names());
     names.addAll(p.utilization().keySet());
-    sb.append("<table class=\"resources\">\n<caption>Per worker, by resource</caption>\n")
+    sb.append("<h3>Per worker, by resource</h3>\n<table class=\"resources\">\n")
         .append("<thead><tr><th scope=\"col\">Resource</th><th scope=\"col\">Allocatable</th>")
         .append("<th scope=\"col\">On every worker</th><th scope=\"col\">Room for pods</th>")
         .append("<th scope=\"col\">Utilization</th></tr></thead>\n<tbody>\n");
@@ -311,13 +310,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
   private static void topology(StringBuilder sb, PlanHost h, Plan p, int i) {
     HostProfile hp = h.profile();
     sb.append("<h3>Host topology</h3>\n<p>")
-        .append(esc(hp.sockets() + (hp.sockets() == 1 ? " socket" : " sockets") + ", "
-            + hp.nodes().size() + " NUMA nodes"
-            + (hp.memoryType().isEmpty() ? "" : ", " + hp.memoryType())
-            + (hp.memorySpeedMts() > 0 ? "-" + hp.memorySpeedMts() : "")
-            + ". Hypervisor keeps " + Units.bytes(hp.hypervisorMemoryBytes()) + " of memory ("
-            + "split equally over the nodes) and " + hp.hypervisorCores() + " cores (from node 0"
-            + " up); each VM costs " + Units.bytes(hp.perVmOverheadBytes()) + " more."))
+        .append(esc(TopologyWords.summary(hp)))
         .append("</p>\n<figure>")
         .append(TopologySvg.draw("p" + i + "-topo", h, p))
         .append("<figcaption>")
@@ -326,7 +319,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     HostFacts facts = HostFacts.of(hp);
     int[] reserved = ShapeDeriver.reservedCoresPerNode(hp);
     long share = hp.nodes().isEmpty() ? 0 : hp.hypervisorMemoryBytes() / hp.nodes().size();
-    sb.append("<table class=\"nodes\">\n<caption>NUMA nodes of ").append(esc(hp.name()))
+    sb.append("<div class=\"scroll\"><table class=\"nodes\">\n<caption>NUMA nodes of ").append(esc(hp.name()))
         .append("</caption>\n<thead><tr><th scope=\"col\">Node</th><th scope=\"col\">Socket</th>")
         .append("<th scope=\"col\">Cores</th><th scope=\"col\">Threads</th>")
         .append("<th scope=\"col\">Hypervisor cores</th><th scope=\"col\">Memory</th>")
@@ -336,10 +329,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     for (int n = 0; n < hp.nodes().size(); n++) {
       NumaNode node = hp.nodes().get(n);
       NodeFacts f = facts.nodes().get(n);
-      HostLayout.Group g = h.layout().groupOf(node.id());
-      String workers = g.nodes().size() == 1
-          ? Integer.toString(g.workers())
-          : g.workers() + " split over nodes " + g.nodes();
+      String workers = TopologyWords.workers(h.layout(), node.id());
       sb.append("<tr class=\"node-row\" data-node=\"").append(node.id()).append("\"><th scope=\"row\">")
           .append(node.id()).append("</th><td class=\"num\">").append(node.socket())
           .append("</td><td class=\"num\">").append(node.cores())
@@ -351,36 +341,15 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
           .append(node.channelsConfirmed()
               ? f.populatedChannels() + " of " + f.channels()
               : "unconfirmed")
-          .append("</td><td>").append(esc(dimms(node)))
+          .append("</td><td>").append(esc(TopologyWords.dimms(node)))
           .append("</td><td class=\"num\">")
           .append(f.peakBandwidthBytesPerSecond().isPresent()
-              ? esc(gbps(f.peakBandwidthBytesPerSecond().getAsLong()))
+              ? esc(TopologyWords.gbps(f.peakBandwidthBytesPerSecond().getAsLong()))
               : "unknown")
           .append("</td><td class=\"num workers\">").append(esc(workers)).append("</td></tr>\n");
     }
-    sb.append("</tbody></table>\n");
+    sb.append("</tbody></table></div>\n");
     hp.distances().ifPresent(d -> distances(sb, hp, d));
-  }
-
-  private static String dimms(NumaNode node) {
-    if (!node.channelsConfirmed() || node.channels().isEmpty()) {
-      return "not listed";
-    }
-    List<String> parts = new ArrayList<>();
-    for (MemoryChannel c : node.channels()) {
-      parts.add(c.name() + ": " + (c.populated()
-          ? String.join(" + ", c.dimmBytes().stream().map(Units::bytes).toList())
-          : "empty"));
-    }
-    return String.join("; ", parts);
-  }
-
-  /** Decimal GB/s, as memory bandwidth is quoted (FACTS B1: DDR4-3200 is 25.6 GB/s a channel). */
-  private static String gbps(long bytesPerSecond) {
-    return BigDecimal.valueOf(bytesPerSecond)
-            .divide(BigDecimal.valueOf(1_000_000_000L), 1, RoundingMode.HALF_UP)
-            .toPlainString()
-        + " GB/s";
   }
 
   private static void distances(StringBuilder sb, HostProfile hp, List<List<Integer>> d) {

@@ -52,6 +52,7 @@ final class Style {
       svg .limit { stroke: #1a1a1a; stroke-width: 2; }
       svg .axis { stroke: #1a1a1a; stroke-width: 1; }
       .pair { display: block; }
+      .scroll { overflow-x: auto; }
       table.heat td { min-width: 2.2em; text-align: center; }
       table.heat .h0 { background: #ffffff; }
       table.heat .h1 { background: #dbe7f5; }
@@ -66,7 +67,7 @@ final class Style {
         section.plan { break-before: page; }
         figure, table { break-inside: avoid; }
         nav { display: none; }
-        details { display: block; }
+        .scroll { overflow: visible; }
       }
       """;
 }
