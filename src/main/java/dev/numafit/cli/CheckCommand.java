@@ -91,7 +91,7 @@ public final class CheckCommand implements Callable<Integer> {
   @Option(names = "--replicas", paramLabel = "peak|declared",
       description = "peak: an HPA's maxReplicas where one targets the workload (default);"
           + " declared: spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(names = "--host-failures", paramLabel = "K",
       description = "Add K whole hosts of headroom (default: 0).")
@@ -138,7 +138,7 @@ public final class CheckCommand implements Callable<Integer> {
   String baselineGit;
 
   @Option(names = {"-o", "--output"}, paramLabel = "FORMAT",
-      description = "Output format: text, json, markdown, sarif or junit (default: text).")
+      description = "Output format: text, json, markdown, sarif, junit or html (default: text).")
   String output = "text";
 
   @Option(names = "--out", paramLabel = "FILE",

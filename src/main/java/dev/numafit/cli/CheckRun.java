@@ -7,35 +7,24 @@ import dev.numafit.check.CheckReport;
 import dev.numafit.check.Finding;
 import dev.numafit.check.Gate;
 import dev.numafit.demand.Demand;
-import dev.numafit.demand.ReplicaMode;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.InputException;
 import dev.numafit.diag.Severity;
-import dev.numafit.fit.SpanningRoom;
-import dev.numafit.host.HostProfile;
 import dev.numafit.manifest.ManifestRead;
 import dev.numafit.manifest.ManifestReader;
 import dev.numafit.manifest.ReadOptions;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanInput;
 import dev.numafit.plan.Planner;
-import dev.numafit.profile.HostProfileReader;
 import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.Units;
 import dev.numafit.report.check.CheckFormat;
-import dev.numafit.resource.Resources;
-import dev.numafit.shape.Allocatable;
-import dev.numafit.shape.AllocatableResult;
-import dev.numafit.shape.HostFit;
-import dev.numafit.shape.ShapeDeriver;
-import dev.numafit.shape.ShapeKind;
-import dev.numafit.shape.ShapeOptions;
-import dev.numafit.shape.ShapeSet;
 import dev.numafit.shape.WorkerShape;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
-import java.util.OptionalInt;
 import java.util.SortedMap;
 
 /**
@@ -45,21 +34,18 @@ import java.util.SortedMap;
 final class CheckRun {
   private CheckRun() {}
 
-  /** The worker the manifests are checked against, and what {@link Planner} needs besides. */
-  record Sizing(
-      String description,
-      WorkerShape shape,
-      Resources allocatable,
-      OptionalInt workersPerHost,
-      List<SpanningRoom> spanning,
-      List<String> notes,
-      List<Diagnostic> warnings) {}
-
   static int run(CheckSettings s, Console console) throws InputException {
     PlanOptions po = s.plan();
     ReadOptions read = new ReadOptions(
-        po.replicas(),
+        po.replicas().mode(),
         po.includeCustom());
+    Pipeline.checkPathsExist(po.files());
+    Pipeline.checkPathsExist(s.baseline());
+    List<Diagnostic> profileErrors = new ArrayList<>();
+    Map<Path, ProfileLoad> profiles = Pipeline.readProfiles(po.hostProfiles(), profileErrors);
+    if (!profileErrors.isEmpty()) {
+      throw new InputException(profileErrors);
+    }
     ManifestReader reader = new ManifestReader(console.maxDocumentChars());
     ManifestRead head = reader.readLocated(po.files(), console.in(), read);
     Optional<ManifestRead> base = Optional.empty();
@@ -76,24 +62,26 @@ final class CheckRun {
       // A gate must not pass on a file it could not read: no --skip-invalid here.
       throw new InputException(errors);
     }
-    Sizing sizing = sizing(po);
+    // The same shape, allocatable and spanning rooms as plan (one host profile at most).
+    Pipeline.Sized sizing = Pipeline.size(po, profiles);
+    PlanInput input = sizing.inputs().get(0);
     Planner planner = new Planner();
-    Plan headPlan = planner.plan(head.demand(), planInput(po, sizing));
+    Plan headPlan = planner.plan(head.demand(), input);
     List<Finding> headFindings =
         CheckEngine.run(
-            new CheckInput(head.demand(), head.sources(), headPlan, sizing.spanning(),
+            new CheckInput(head.demand(), head.sources(), headPlan, input.spanning(),
                 po.maxUtilizationPct()),
             s.check(),
             base.map(ManifestRead::demand));
     Optional<List<Finding>> baseFindings = Optional.empty();
     Optional<Capacity> baseCapacity = Optional.empty();
     if (base.isPresent()) {
-      Plan basePlan = planner.plan(base.get().demand(), planInput(po, sizing));
+      Plan basePlan = planner.plan(base.get().demand(), input);
       baseFindings =
           Optional.of(
               CheckEngine.run(
                   new CheckInput(base.get().demand(), base.get().sources(), basePlan,
-                      sizing.spanning(), po.maxUtilizationPct()),
+                      input.spanning(), po.maxUtilizationPct()),
                   s.check()));
       baseCapacity = Optional.of(new Capacity(basePlan.workersNeeded(), basePlan.hostsNeeded()));
     }
@@ -104,7 +92,7 @@ final class CheckRun {
     warnings.addAll(headPlan.warnings());
     CheckReport report =
         Gate.decide(
-            sizing.description(),
+            describe(po, input),
             head.demand().workloads().stream().map(w -> w.id().toString()).toList(),
             headFindings,
             baseFindings,
@@ -124,78 +112,12 @@ final class CheckRun {
     return d.diagnostics().stream().filter(x -> x.severity() == Severity.ERROR).toList();
   }
 
-  private static PlanInput planInput(PlanOptions po, Sizing sz) {
-    return new PlanInput(
-        Optional.empty(),
-        sz.shape(),
-        sz.allocatable(),
-        sz.workersPerHost(),
-        sz.spanning(),
-        po.perWorker(),
-        po.hostFailures(),
-        po.maxUtilizationPct(),
-        po.growth(),
-        false,
-        sz.notes(),
-        List.of());
-  }
-
-  /**
-   * The worker shape as {@code plan} derives it: the host profile's one-node worker, or the
-   * {@code --worker} shape (placed on the host when a profile is given).
-   */
-  static Sizing sizing(PlanOptions po) throws InputException {
-    List<Diagnostic> warnings = new ArrayList<>();
-    List<String> notes = new ArrayList<>();
-    Optional<HostProfile> profile = Optional.empty();
-    if (!po.hostProfiles().isEmpty()) {
-      ProfileLoad load = new HostProfileReader().read(po.hostProfiles().get(0));
-      warnings.addAll(load.warnings());
-      profile = Optional.of(load.profile());
-    }
-    ShapeDeriver deriver =
-        new ShapeDeriver(new ShapeOptions(po.vcpuPerThread(), po.cpuOvercommit()));
-    WorkerShape shape;
-    List<SpanningRoom> spanning = new ArrayList<>();
-    OptionalInt perHost = OptionalInt.empty();
-    String label;
-    if (po.worker().isPresent()) {
-      Resources w = po.worker().get();
-      shape = new WorkerShape(ShapeKind.EXPLICIT, 1, 1, w.get(Resources.CPU) / 1000,
-          w.get(Resources.MEMORY), w.without(Resources.CPU).without(Resources.MEMORY));
-      label = "given worker";
-    } else {
-      shape = null;
-      label = "one-node worker";
-    }
-    if (profile.isPresent()) {
-      HostProfile hp = profile.get();
-      ShapeSet set = deriver.derive(hp);
-      warnings.addAll(set.warnings());
-      if (shape == null) {
-        shape = set.oneNode();
-      }
-      for (WorkerShape span : set.spanning()) {
-        spanning.add(new SpanningRoom(span.kind().label(), Allocatable.compute(span, po.reserve())));
-      }
-      if (shape.vcpus() == 0) {
-        throw new InputException(Diagnostic.error(hp.source(),
-            "host profile " + hp.name() + " leaves no vCPU for a one-node worker"));
-      }
-      HostFit fit = deriver.workersPerHost(hp, shape);
-      notes.addAll(fit.notes());
-      if (fit.workersPerHost() < 1) {
-        throw new InputException(Diagnostic.error(hp.source(),
-            "the worker (" + shape.vcpus() + " vCPUs, " + Units.bytes(shape.memoryBytes())
-                + ") does not fit on a host of profile " + hp.name()));
-      }
-      perHost = OptionalInt.of(fit.workersPerHost());
-      label += " of host profile " + hp.name();
-    }
-    AllocatableResult alloc = Allocatable.computeDetailed(shape, po.reserve());
-    alloc.warnings().forEach(w -> warnings.add(Diagnostic.warning(null, w)));
-    String description = label + ": " + shape.vcpus() + " vCPUs, "
-        + Units.bytes(shape.memoryBytes()) + "; allocatable " + Units.vector(alloc.allocatable());
-    return new Sizing(description, shape, alloc.allocatable(), perHost, spanning, notes, warnings);
+  /** One line naming the worker checked against, its size and its allocatable. */
+  private static String describe(PlanOptions po, PlanInput in) {
+    WorkerShape shape = in.worker();
+    String label = po.worker().isPresent() ? "given worker" : "one-node worker";
+    label += in.hostProfile().map(n -> " of host profile " + n).orElse("");
+    return label + ": " + shape.vcpus() + " vCPUs, " + Units.bytes(shape.memoryBytes())
+        + "; allocatable " + Units.vector(in.allocatable());
   }
 }

@@ -8,7 +8,7 @@ import picocli.CommandLine.Option;
 final class CommonOptions {
   @Option(
       names = {"-o", "--output"},
-      paramLabel = "text|json",
+      paramLabel = "FORMAT",
       converter = FormatConverter.class,
       completionCandidates = FormatConverter.Names.class,
       description = "Output format: ${COMPLETION-CANDIDATES} (default: text).")
@@ -26,6 +26,18 @@ final class CommonOptions {
       names = "--verbose",
       description = "Print a stack trace with an internal error.")
   boolean verbose;
+
+  /** Stops with a usage error when {@code -o} names a format this command does not write. */
+  void requireFormat(String command, ReportFormat... accepted) {
+    if (!java.util.List.of(accepted).contains(output)) {
+      throw new UsageException(
+          java.util.List.of(
+              "-o " + output.label() + " is not available for " + command + " (expected one of: "
+                  + String.join(", ",
+                      java.util.Arrays.stream(accepted).map(ReportFormat::label).toList())
+                  + ")"));
+    }
+  }
 
   /** Converts {@code -o} values with the message of {@link ReportFormat#fromLabel}. */
   static final class FormatConverter implements picocli.CommandLine.ITypeConverter<ReportFormat> {

@@ -1,6 +1,6 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
+import dev.numafit.report.ReportFormat;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -48,7 +48,7 @@ public final class DemandCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(
       names = "--include-custom",
@@ -62,25 +62,7 @@ public final class DemandCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    List<String> problems = new ArrayList<>();
-    if (files.isEmpty()) {
-      problems.add("demand needs at least one -f/--filename (a file, a folder, or - for standard"
-          + " input)");
-    }
-    if (files.stream().filter("-"::equals).count() > 1) {
-      problems.add("-f - (standard input) can be given only once");
-    }
-    if (!problems.isEmpty()) {
-      throw new UsageException(problems);
-    }
-    return Pipeline.demand(
-        new DemandOptions(
-            files,
-            replicas,
-            includeCustom,
-            skipInvalid,
-            common.output,
-            java.util.Optional.ofNullable(common.out)),
-        root.console());
+    common.requireFormat("demand", ReportFormat.TEXT, ReportFormat.JSON);
+    return Pipeline.demand(DemandOptions.check(this), root.console());
   }
 }

@@ -18,11 +18,15 @@ import dev.numafit.profile.ProfileLoad;
 import dev.numafit.report.DemandJsonWriter;
 import dev.numafit.report.DemandReport;
 import dev.numafit.report.DemandTextWriter;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.PlanJsonWriter;
+import dev.numafit.report.PlanMarkdownWriter;
 import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.TextStyle;
+import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.Allocatable;
@@ -73,11 +77,62 @@ final class Pipeline {
     Map<Path, ProfileLoad> profiles = readProfiles(o.hostProfiles(), profileErrors);
     List<Diagnostic> warnings =
         new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
-    ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
+    Sized sized = size(o, profiles);
+    warnings.addAll(sized.warnings());
     Planner planner = new Planner();
     List<Plan> plans = new ArrayList<>();
+    for (PlanInput in : sized.inputs()) {
+      plans.add(planner.plan(demand, in));
+    }
+    List<WorkerShape> shapes = sized.shapes();
+    Map<String, BigDecimal> costs = sized.costs();
+    for (Plan p : plans) {
+      warnings.addAll(p.warnings());
+    }
+    Optional<PlanComparison> comparison =
+        plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
+    PlanReport report = new PlanReport(demand, plans, comparison, warnings, sized.hosts());
+    if (o.kubeletConfigDir().isPresent()) {
+      writeKubeletConfigs(o, plans, shapes);
+    }
+    ReportWriter<PlanReport> writer = planWriter(o.format(), console.stdout());
+    if (o.format() == ReportFormat.TEXT) {
+      report.warnings().forEach(console::report);
+    }
+    ReportOutput.write(writer.render(report), o.out(), console);
+    return ExitCode.OK.code();
+  }
+
+  /**
+   * What sizing needs besides the demand, shared by {@code plan} and {@code check}: one plan input
+   * per host profile in order (or one for a bare --worker), the worker shape of each, the profiles'
+   * relative costs, each profile's host and worker layout (for the HTML report), and the
+   * profiles' warnings.
+   */
+  record Sized(
+      List<PlanInput> inputs,
+      List<WorkerShape> shapes,
+      Map<String, BigDecimal> costs,
+      TreeMap<String, PlanHost> hosts,
+      List<Diagnostic> warnings) {}
+
+  /**
+   * The worker shape, allocatable, workers per host and spanning rooms for each host profile (or
+   * the bare --worker).
+   *
+   * @throws UsageException when a profile leaves no room for a worker or the --worker does not
+   *     fit its host
+   */
+  static Sized size(PlanOptions o, Map<Path, ProfileLoad> profiles) {
+    ShapeDeriver deriver = new ShapeDeriver(new ShapeOptions(o.vcpuPerThread(), o.cpuOvercommit()));
+    List<PlanInput> inputs = new ArrayList<>();
+    List<Diagnostic> warnings = new ArrayList<>();
     List<WorkerShape> shapes = new ArrayList<>();
     Map<String, BigDecimal> costs = new TreeMap<>();
+    TreeMap<String, PlanHost> hosts = new TreeMap<>();
+    // The fill charts need to know which pods share a worker.
+    boolean placement =
+        o.placement() || o.format() == ReportFormat.HTML || o.format() == ReportFormat.MARKDOWN;
     List<String> problems = new ArrayList<>();
     for (ProfileLoad load : profiles.values()) {
       warnings.addAll(load.warnings());
@@ -128,11 +183,13 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               notes,
-              planWarnings);
-      plans.add(planner.plan(demand, in));
+              planWarnings,
+              o.placementOptions());
+      inputs.add(in);
       shapes.add(shape);
+      hosts.put(host.name(), new PlanHost(host, deriver.layout(host, shape)));
     }
     if (o.hostProfiles().isEmpty()) {
       WorkerShape shape = explicitShape(o.worker().orElseThrow(), 1);
@@ -150,37 +207,26 @@ final class Pipeline {
               o.hostFailures(),
               o.maxUtilizationPct(),
               o.growth(),
-              o.placement(),
+              placement,
               List.of(ShapeDeriver.topologyAdvice(shape)),
-              planWarnings);
-      plans.add(planner.plan(demand, in));
+              planWarnings,
+              o.placementOptions());
+      inputs.add(in);
       shapes.add(shape);
     }
     if (!problems.isEmpty()) {
       throw new UsageException(problems);
     }
-    for (Plan p : plans) {
-      warnings.addAll(p.warnings());
-    }
-    Optional<PlanComparison> comparison =
-        plans.size() >= 2 ? Optional.of(PlanComparison.of(plans, costs)) : Optional.empty();
-    PlanReport report = new PlanReport(demand, plans, comparison, warnings);
-    if (o.kubeletConfigDir().isPresent()) {
-      writeKubeletConfigs(o, plans, shapes);
-    }
-    ReportWriter<PlanReport> writer = planWriter(o.format());
-    if (o.format() == ReportFormat.TEXT) {
-      report.warnings().forEach(console::report);
-    }
-    ReportOutput.write(writer.render(report), o.out(), console);
-    return ExitCode.OK.code();
+    return new Sized(inputs, shapes, costs, hosts, warnings);
   }
 
   /** The writer of each format for plan reports. */
-  static ReportWriter<PlanReport> planWriter(ReportFormat format) {
+  static ReportWriter<PlanReport> planWriter(ReportFormat format, TextStyle style) {
     return switch (format) {
-      case TEXT -> new PlanTextWriter();
+      case TEXT -> new PlanTextWriter(style);
       case JSON -> new PlanJsonWriter();
+      case HTML -> new PlanHtmlWriter();
+      case MARKDOWN -> new PlanMarkdownWriter();
     };
   }
 
@@ -189,13 +235,15 @@ final class Pipeline {
     return switch (format) {
       case TEXT -> new DemandTextWriter();
       case JSON -> new DemandJsonWriter();
+      // DemandCommand refuses these formats before anything is read.
+      case HTML, MARKDOWN -> throw new IllegalArgumentException("demand writes text or json");
     };
   }
 
   private static Demand readDemand(
-      List<String> files, ReplicaMode replicas, boolean includeCustom, Console console) {
+      List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
     return new ManifestReader(console.maxDocumentChars())
-        .read(files, console.in(), new ReadOptions(replicas, includeCustom));
+        .read(files, console.in(), new ReadOptions(replicas.mode(), includeCustom));
   }
 
   /**
@@ -219,7 +267,7 @@ final class Pipeline {
    * A path that does not exist is a usage error whatever --skip-invalid says: the user meant
    * another path.
    */
-  private static void checkPathsExist(List<String> files) {
+  static void checkPathsExist(List<String> files) {
     List<String> problems = new ArrayList<>();
     for (String f : files) {
       if (!f.equals("-") && !Files.exists(Path.of(f))) {
@@ -232,7 +280,7 @@ final class Pipeline {
   }
 
   /** Reads every profile, collecting the errors of all of them. */
-  private static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
+  static Map<Path, ProfileLoad> readProfiles(List<Path> paths, List<Diagnostic> errors) {
     Map<Path, ProfileLoad> loads = new LinkedHashMap<>();
     HostProfileReader reader = new HostProfileReader();
     for (Path p : paths) {

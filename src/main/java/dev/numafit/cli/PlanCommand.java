@@ -1,6 +1,5 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -108,13 +107,35 @@ public final class PlanCommand implements Callable<Integer> {
       description =
           "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
               + " spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(
       names = "--host-failures",
       paramLabel = "K",
-      description = "Add K whole hosts of headroom (default: 0).")
+      description =
+          "Size so that losing any K hosts (the worst K) leaves room for every pod"
+              + " (default: 0).")
   int hostFailures;
+
+  @Option(
+      names = "--zones",
+      paramLabel = "Z",
+      description = "Spread hosts evenly over Z zones; workers carry the zone label (default: 1).")
+  int zones = 1;
+
+  @Option(
+      names = "--zone-failures",
+      paramLabel = "0|1",
+      description = "1: size so that losing a whole zone leaves room for every pod (default: 0).")
+  int zoneFailures;
+
+  @Option(
+      names = "--spread-replicas-across",
+      paramLabel = "hosts|workers|zones",
+      description =
+          "Spread the replicas of every workload evenly (maxSkew 1) across physical hosts,"
+              + " workers or zones.")
+  String spreadReplicasAcross;
 
   @Option(
       names = "--max-utilization",

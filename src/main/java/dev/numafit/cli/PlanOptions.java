@@ -1,6 +1,7 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
+import dev.numafit.demand.PlacementRules;
+import dev.numafit.plan.PlacementOptions;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.KubeletReserve;
@@ -27,6 +28,7 @@ import java.util.SortedMap;
  * @param cpuOvercommit vCPUs per physical core (or thread), ≥ 1
  * @param kubeletConfigDir where to write KubeletConfiguration files, when asked
  * @param out the report file, when not standard output
+ * @param placementOptions --zones, --zone-failures and --spread-replicas-across
  */
 public record PlanOptions(
     List<String> files,
@@ -34,7 +36,7 @@ public record PlanOptions(
     Optional<Resources> worker,
     KubeletReserve reserve,
     Resources perWorker,
-    ReplicaMode replicas,
+    ReplicasOption replicas,
     int hostFailures,
     int maxUtilizationPct,
     BigDecimal growth,
@@ -45,8 +47,10 @@ public record PlanOptions(
     boolean skipInvalid,
     Optional<Path> kubeletConfigDir,
     ReportFormat format,
-    Optional<Path> out) {
+    Optional<Path> out,
+    PlacementOptions placementOptions) {
   public PlanOptions {
+    Objects.requireNonNull(placementOptions, "placementOptions");
     files = List.copyOf(files);
     hostProfiles = List.copyOf(hostProfiles);
     Objects.requireNonNull(worker, "worker");
@@ -153,6 +157,28 @@ public record PlanOptions(
       problems.add("--host-failures needs --host-profile (without one, plan counts workers,"
           + " not hosts)");
     }
+    if (c.zones < 1) {
+      problems.add("--zones must be 1 or more, got " + c.zones);
+    }
+    if (c.zoneFailures < 0 || c.zoneFailures > 1) {
+      problems.add("--zone-failures takes 0 or 1, got " + c.zoneFailures);
+    } else if (c.zoneFailures == 1 && c.zones < 2) {
+      problems.add("--zone-failures 1 needs --zones 2 or more");
+    }
+    if (c.zoneFailures > 0 && c.hostProfiles.isEmpty()) {
+      problems.add("--zone-failures needs --host-profile (without one, plan counts workers,"
+          + " not hosts)");
+    }
+    Optional<String> spreadKey = Optional.empty();
+    if (c.spreadReplicasAcross != null) {
+      switch (c.spreadReplicasAcross) {
+        case "hosts" -> spreadKey = Optional.of(PlacementRules.HOST_KEY);
+        case "workers" -> spreadKey = Optional.of(PlacementRules.HOSTNAME_KEY);
+        case "zones" -> spreadKey = Optional.of(PlacementRules.ZONE_KEY);
+        default -> problems.add("--spread-replicas-across takes hosts, workers or zones, not \""
+            + c.spreadReplicasAcross + "\"");
+      }
+    }
     if (c.maxUtilization < 1 || c.maxUtilization > 100) {
       problems.add("--max-utilization must be a percentage from 1 to 100, got "
           + c.maxUtilization);
@@ -190,7 +216,9 @@ public record PlanOptions(
         c.skipInvalid,
         Optional.ofNullable(c.kubeletConfig),
         c.common.output,
-        Optional.ofNullable(c.common.out));
+        Optional.ofNullable(c.common.out),
+        new PlacementOptions(
+            c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey));
   }
 
   private static Optional<Resources> parse(

@@ -45,6 +45,7 @@ public final class ProfileShowCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    common.requireFormat("profile show", ReportFormat.TEXT, ReportFormat.JSON);
     Console console = parent.console();
     ProfileLoad load = new HostProfileReader().read(file);
     ProfileFacts facts = ProfileFacts.of(file.toString(), load);

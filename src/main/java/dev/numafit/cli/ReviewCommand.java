@@ -116,7 +116,7 @@ public final class ReviewCommand implements Callable<Integer> {
       paramLabel = "peak|declared",
       description = "With --from declared: an autoscaler's maxReplicas (peak, default) or"
           + " spec.replicas.")
-  ReplicaMode replicas = ReplicaMode.PEAK;
+  ReplicasOption replicas = ReplicasOption.PEAK;
 
   @Option(
       names = {"-o", "--output"},
@@ -204,7 +204,7 @@ public final class ReviewCommand implements Callable<Integer> {
     ResizeRequest request = new ResizeRequest(kv[0], kv[1],
         nodes == null ? OptionalInt.empty() : OptionalInt.of(nodes), shape, oneNode,
         profile.map(HostProfile::name), hostFailures, Optional.ofNullable(hostLabel), perHost,
-        source, replicas);
+        source, replicas.mode());
 
     ClusterModel model = cluster.load(console, verbose);
     Review review;

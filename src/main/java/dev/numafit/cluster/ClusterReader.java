@@ -64,7 +64,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.TreeMap;
-import java.util.TreeSet;
 import java.util.function.Consumer;
 import java.util.function.Function;
 
@@ -588,14 +587,5 @@ public final class ClusterReader {
 
   private static String trimSlash(String url) {
     return url.endsWith("/") ? url.substring(0, url.length() - 1) : url;
-  }
-
-  /** Sorted set helper for callers that print the types read. */
-  static TreeSet<String> displays() {
-    TreeSet<String> out = new TreeSet<>();
-    for (ResourceType t : ResourceType.values()) {
-      out.add(t.display());
-    }
-    return out;
   }
 }

@@ -48,7 +48,8 @@ final class DocumentReader {
 
   private final int maxDocumentChars;
   private final YAMLMapper yaml;
-  private final JsonMapper json;
+  private final StreamReadConstraints limits;
+  private JsonMapper json;
 
   /** A reader with the default document size limit ({@link ManifestReader#DEFAULT_MAX_DOCUMENT_CHARS}). */
   DocumentReader() {
@@ -77,10 +78,18 @@ final class DocumentReader {
                     .build())
             .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
             .build();
-    this.json =
-        JsonMapper.builder(JsonFactory.builder().streamReadConstraints(limits).build())
-            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
-            .build();
+    this.limits = limits;
+  }
+
+  private JsonMapper json() {
+    if (json == null) {
+      // Built on first use: most inputs are YAML only.
+      json =
+          JsonMapper.builder(JsonFactory.builder().streamReadConstraints(limits).build())
+              .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+              .build();
+    }
+    return json;
   }
 
   /** Thrown while building a tree whose aliases copy more than {@link #MAX_ALIAS_VALUES}. */
@@ -125,7 +134,7 @@ final class DocumentReader {
     while (rest != null) {
       String next = null;
       JsonParser parser = null;
-      try (JsonParser p = asJson ? json.createParser(rest) : yaml.createParser(rest)) {
+      try (JsonParser p = asJson ? json().createParser(rest) : yaml.createParser(rest)) {
         parser = p;
         JsonToken t;
         while ((t = p.nextToken()) != null) {

@@ -4,6 +4,7 @@ import dev.numafit.demand.Admission;
 import dev.numafit.demand.Demand;
 import dev.numafit.demand.EffectivePod;
 import dev.numafit.demand.LimitDefaults;
+import dev.numafit.demand.PlacementRules;
 import dev.numafit.demand.PodArithmetic;
 import dev.numafit.demand.PodModel;
 import dev.numafit.demand.ReplicaRules;
@@ -69,9 +70,13 @@ public final class ManifestReader {
   public static final String STDIN = "<stdin>";
 
   private static final String GUESS_FLAG = "sized from a custom resource: a guess";
-  // Shared: its deserializer cache is costly to build and safe to use from any thread.
-  private static final KubernetesSerialization K8S = new KubernetesSerialization();
-  private final KubernetesSerialization k8s = K8S;
+  /**
+   * fabric8's serialization, shared: its deserializer cache is costly to build and safe to use
+   * from any thread. Built on first use, as plain workloads ({@link PlainWorkloads}) never need it.
+   */
+  private static final class K8s {
+    static final KubernetesSerialization INSTANCE = new KubernetesSerialization();
+  }
   private final DocumentReader documents;
   private final int maxChars;
 
@@ -171,7 +176,10 @@ public final class ManifestReader {
 
   /** Where a candidate's pod template, replica count and containers are written. */
   private record Lines(
-      SourceRef template, Optional<SourceRef> replicas, SortedMap<String, SourceRef> containers) {}
+      SourceRef template,
+      Optional<SourceRef> replicas,
+      SortedMap<String, SourceRef> containers,
+      PlacementRules rules) {}
 
   /**
    * The lines of a pod spec at {@code specPtr}: the template, each container's {@code resources}
@@ -201,7 +209,15 @@ public final class ManifestReader {
         specPtr.endsWith("/spec") && !specPtr.equals("/spec")
             ? specPtr.substring(0, specPtr.length() - 5)
             : specPtr;
-    return new Lines(new SourceRef(doc.file(), doc.keyLine(templatePtr)), replicas, containers);
+    return new Lines(
+        new SourceRef(doc.file(), doc.keyLine(templatePtr)),
+        replicas,
+        containers,
+        PlacementReader.read(
+            doc.at(specPtr),
+            doc.at(
+                (specPtr.endsWith("/spec") ? specPtr.substring(0, specPtr.length() - 5) : specPtr)
+                    + "/metadata/labels")));
   }
 
   private record Autoscaler(
@@ -364,7 +380,6 @@ public final class ManifestReader {
     }
 
     void readText(String file, String text, boolean json) {
-      List<LocatedDocument> docs = new ArrayList<>();
       if (text.startsWith("\uFEFF")) {
         text = text.substring(1);
       }
@@ -372,9 +387,10 @@ public final class ManifestReader {
         diags.add(Diagnostic.warning(new SourceRef(file, 0), "empty file"));
         return;
       }
-      List<Diagnostic> fileDiags = new ArrayList<>();
-      DocumentReader.Outcome o = documents.read(file, text, json, docs::add, fileDiags);
-      finishText(file, text, docs, o, fileDiags);
+      // Each document is read as soon as it is parsed, so its tree and line table become garbage
+      // at once instead of all of them staying alive until the end of the file.
+      DocumentReader.Outcome o = documents.read(file, text, json, this::readDocument, diags);
+      finishText(file, text, List.of(), o, List.of());
     }
 
     void finishText(
@@ -394,20 +410,22 @@ public final class ManifestReader {
                         ? " empty or comment-only document"
                         : " empty or comment-only documents")));
       }
-      for (LocatedDocument doc : docs) {
-        try {
-          document(doc);
-        } catch (RuntimeException e) {
-          // A safety net: whatever an unexpected document does, the rest is still read.
-          diags.add(
-              Diagnostic.error(
-                  new SourceRef(doc.file(), doc.startLine()),
-                  "cannot read this document ("
-                      + e.getClass().getSimpleName()
-                      + ": "
-                      + e.getMessage()
-                      + ")"));
-        }
+      docs.forEach(this::readDocument);
+    }
+
+    void readDocument(LocatedDocument doc) {
+      try {
+        document(doc);
+      } catch (RuntimeException e) {
+        // A safety net: whatever an unexpected document does, the rest is still read.
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(doc.file(), doc.startLine()),
+                "cannot read this document ("
+                    + e.getClass().getSimpleName()
+                    + ": "
+                    + e.getMessage()
+                    + ")"));
       }
     }
 
@@ -580,11 +598,12 @@ public final class ManifestReader {
       String template = spec + "/template/spec";
       switch (k) {
         case POD -> {
-          Pod o = convert(node, Pod.class, ptr, ctx);
-          if (o == null) {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          Pod o = plain != null ? null : convert(node, Pod.class, ptr, ctx);
+          if (plain == null && o == null) {
             return false;
           }
-          PodModel pod = PodSpecs.toModel(o.getSpec(), spec, ctx);
+          PodModel pod = PodSpecs.toModel(plain != null ? plain.podSpec() : o.getSpec(), spec, ctx);
           put(
               key,
               new Candidate(id, source, pod, ReplicaRules.pod(), false, false, false),
@@ -592,6 +611,11 @@ public final class ManifestReader {
               lines(ctx.doc, spec, null));
         }
         case DEPLOYMENT -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           Deployment o = convert(node, Deployment.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -608,6 +632,11 @@ public final class ManifestReader {
               ctx);
         }
         case REPLICA_SET -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           ReplicaSet o = convert(node, ReplicaSet.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -624,6 +653,11 @@ public final class ManifestReader {
               ctx);
         }
         case STATEFUL_SET -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           StatefulSet o = convert(node, StatefulSet.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -640,6 +674,11 @@ public final class ManifestReader {
               ctx);
         }
         case REPLICATION_CONTROLLER -> {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          if (plain != null) {
+            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+            return true;
+          }
           ReplicationController o = convert(node, ReplicationController.class, ptr, ctx);
           if (o == null) {
             return false;
@@ -656,11 +695,15 @@ public final class ManifestReader {
               ctx);
         }
         case DAEMON_SET -> {
-          DaemonSet o = convert(node, DaemonSet.class, ptr, ctx);
-          if (o == null) {
+          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+          DaemonSet o = plain != null ? null : convert(node, DaemonSet.class, ptr, ctx);
+          if (plain == null && o == null) {
             return false;
           }
-          PodTemplateSpec t = o.getSpec() == null ? null : o.getSpec().getTemplate();
+          PodTemplateSpec t =
+              plain != null
+                  ? plain.template()
+                  : o.getSpec() == null ? null : o.getSpec().getTemplate();
           PodModel pod = PodSpecs.toModel(t == null ? null : t.getSpec(), template, ctx);
           put(
               key,
@@ -865,7 +908,7 @@ public final class ManifestReader {
 
     <T> T convert(JsonNode node, Class<T> type, String ptr, ObjectContext ctx) {
       try {
-        return k8s.convertValue(node, type);
+        return K8s.INSTANCE.convertValue(node, type);
       } catch (RuntimeException e) {
         DatabindException de = null;
         for (Throwable c = e; c != null; c = c.getCause()) {
@@ -1085,7 +1128,15 @@ public final class ManifestReader {
         }
         sources.put(c.id(), new WorkloadSource(at.template(), replicasAt, at.containers(), pod));
       }
-      return new Workload(c.id(), c.source(), replicas, eff, c.perWorker(), c.custom(), flags);
+      return new Workload(
+          c.id(),
+          c.source(),
+          replicas,
+          eff,
+          c.perWorker(),
+          c.custom(),
+          flags,
+          at == null ? PlacementRules.NONE : at.rules());
     }
   }
 

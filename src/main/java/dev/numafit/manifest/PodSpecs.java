@@ -14,6 +14,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.SortedMap;
 import java.util.TreeMap;
+import java.util.concurrent.ConcurrentHashMap;
 
 /**
  * Turns a fabric8 {@link PodSpec} into the core {@link PodModel}, reading every quantity once
@@ -121,6 +122,36 @@ final class PodSpecs {
     return out;
   }
 
+  /**
+   * Amounts already computed, by the quantity's text. Manifests repeat a few sizes (100m, 64Mi)
+   * thousands of times, and fabric8's parsing of each one is the costly part of reading them.
+   * Only valid quantities are kept, and only the first {@link #CACHE_LIMIT} distinct ones.
+   */
+  private static final ConcurrentHashMap<AmountKey, BigDecimal> AMOUNTS = new ConcurrentHashMap<>();
+
+  /** A quantity as fabric8 holds it: the number and the unit suffix as written. */
+  private record AmountKey(String amount, String format) {}
+
+  private static final int CACHE_LIMIT = 4096;
+
+  /** {@link Quantity#getNumericalAmount()}, from the cache when the same text was read before. */
+  static BigDecimal numericalAmount(Quantity q) {
+    String amount = q.getAmount();
+    String format = q.getFormat();
+    if (amount == null || format == null || q.getClass() != Quantity.class) {
+      return q.getNumericalAmount();
+    }
+    AmountKey key = new AmountKey(amount, format);
+    BigDecimal v = AMOUNTS.get(key);
+    if (v == null) {
+      v = q.getNumericalAmount();
+      if (AMOUNTS.size() < CACHE_LIMIT) {
+        AMOUNTS.put(key, v);
+      }
+    }
+    return v;
+  }
+
   /** One quantity in base units, or empty after recording an error. */
   static Optional<BigDecimal> amount(Quantity q, String ptr, String field, ObjectContext ctx) {
     BigDecimal v;
@@ -128,7 +159,7 @@ final class PodSpecs {
       if (q == null) {
         throw new NumberFormatException("null");
       }
-      v = q.getNumericalAmount();
+      v = numericalAmount(q);
     } catch (RuntimeException ex) {
       ctx.error(
           ptr, field + " \"" + ctx.written(ptr, q) + "\" is not a Kubernetes quantity " + EXPECTED);

@@ -20,13 +20,16 @@ import java.util.SortedMap;
  * @param workersPerHost workers of this shape one host carries; empty without a host profile
  * @param workersNeeded workers the packing used
  * @param lowerBound no packing can use fewer workers than this
- * @param hostsNeeded hosts for those workers plus failure headroom; empty without a host profile
+ * @param hostsNeeded hosts for those workers, sized to survive the failures asked for; empty
+ *     without a host profile
  * @param utilization per resource, requested / allocatable over all workers, 4 decimals
  * @param bindingResource the resource that runs out first
  * @param placement workers and their pods, only when asked for
  * @param unchecked resources requested but with no capacity given, so not checked
  * @param notes human-readable remarks (what larger nodes leave unused, split advice)
  * @param warnings diagnostics raised while planning
+ * @param hostsNeededWithoutFailures hosts needed when no host or zone is lost; present only when
+ *     the plan was sized for failures ({@code hostsNeeded} then includes the headroom)
  */
 public record Plan(
     Optional<String> hostProfile,
@@ -44,13 +47,38 @@ public record Plan(
     Optional<List<WorkerPlacement>> placement,
     List<String> unchecked,
     List<String> notes,
-    List<Diagnostic> warnings) {
+    List<Diagnostic> warnings,
+    OptionalInt hostsNeededWithoutFailures) {
   public Plan {
+    java.util.Objects.requireNonNull(hostsNeededWithoutFailures, "hostsNeededWithoutFailures");
     oversize = List.copyOf(oversize);
     utilization = java.util.Collections.unmodifiableSortedMap(new java.util.TreeMap<>(utilization));
     placement = placement.map(List::copyOf);
     unchecked = List.copyOf(unchecked);
     notes = List.copyOf(notes);
     warnings = List.copyOf(warnings);
+  }
+
+  /** A plan not sized for failures. */
+  public Plan(
+      Optional<String> hostProfile,
+      WorkerShape worker,
+      Resources allocatable,
+      Resources perWorkerDemand,
+      Resources room,
+      OptionalInt workersPerHost,
+      int workersNeeded,
+      int lowerBound,
+      OptionalInt hostsNeeded,
+      List<Oversize> oversize,
+      SortedMap<String, Double> utilization,
+      String bindingResource,
+      Optional<List<WorkerPlacement>> placement,
+      List<String> unchecked,
+      List<String> notes,
+      List<Diagnostic> warnings) {
+    this(hostProfile, worker, allocatable, perWorkerDemand, room, workersPerHost, workersNeeded,
+        lowerBound, hostsNeeded, oversize, utilization, bindingResource, placement, unchecked,
+        notes, warnings, OptionalInt.empty());
   }
 }

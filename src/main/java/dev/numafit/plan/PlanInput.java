@@ -25,7 +25,8 @@ import java.util.OptionalInt;
  *     2-nodes}, {@code socket}, {@code host})
  * @param perWorkerExtra demand on every worker that is not in the manifests ({@code
  *     --per-worker}); a {@code pods} amount counts against maxPods
- * @param hostFailures whole hosts of headroom added to the host count ({@code --host-failures})
+ * @param hostFailures hosts whose loss the plan must survive ({@code --host-failures}): the
+ *     worst case over every set of that many hosts
  * @param maxUtilizationPct 1..100: the share of each allocatable amount (except {@code pods}) that
  *     may be used ({@code --max-utilization})
  * @param growth at least 1: multiplies each workload's peak replica count, rounded up ({@code
@@ -33,6 +34,8 @@ import java.util.OptionalInt;
  * @param placement whether to list which pods go on which worker
  * @param notes remarks carried into the plan (what larger nodes leave unused, split advice)
  * @param warnings diagnostics carried into the plan
+ * @param placementOptions zones, zone failures and added spread ({@link PlacementOptions#NONE}
+ *     for none)
  */
 public record PlanInput(
     Optional<String> hostProfile,
@@ -46,8 +49,10 @@ public record PlanInput(
     BigDecimal growth,
     boolean placement,
     List<String> notes,
-    List<Diagnostic> warnings) {
+    List<Diagnostic> warnings,
+    PlacementOptions placementOptions) {
   public PlanInput {
+    Objects.requireNonNull(placementOptions, "placementOptions");
     Objects.requireNonNull(hostProfile, "hostProfile");
     Objects.requireNonNull(worker, "worker");
     Objects.requireNonNull(allocatable, "allocatable");
@@ -76,6 +81,30 @@ public record PlanInput(
         throw new IllegalArgumentException("allocatable " + e.getKey() + " is negative");
       }
     }
+  }
+
+  /** An input without zones, zone failures or added spread. */
+  public PlanInput(
+      Optional<String> hostProfile,
+      WorkerShape worker,
+      Resources allocatable,
+      OptionalInt workersPerHost,
+      List<SpanningRoom> spanning,
+      Resources perWorkerExtra,
+      int hostFailures,
+      int maxUtilizationPct,
+      BigDecimal growth,
+      boolean placement,
+      List<String> notes,
+      List<Diagnostic> warnings) {
+    this(hostProfile, worker, allocatable, workersPerHost, spanning, perWorkerExtra, hostFailures,
+        maxUtilizationPct, growth, placement, notes, warnings, PlacementOptions.NONE);
+  }
+
+  /** This input with other placement options. */
+  public PlanInput withPlacementOptions(PlacementOptions options) {
+    return new PlanInput(hostProfile, worker, allocatable, workersPerHost, spanning, perWorkerExtra,
+        hostFailures, maxUtilizationPct, growth, placement, notes, warnings, options);
   }
 
   /**

@@ -5,7 +5,10 @@ import dev.numafit.demand.Workload;
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.fit.OversizeCheck;
 import dev.numafit.fit.SpanningRoom;
+import dev.numafit.demand.PlacementRules;
+import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
+import dev.numafit.pack.RulePacker;
 import dev.numafit.pack.VectorPacker;
 import dev.numafit.resource.Resources;
 import java.math.BigDecimal;
@@ -38,7 +41,13 @@ import java.util.TreeSet;
  *       packed; resources with no capacity are reported as unchecked.
  *   <li>The rest are packed ({@link VectorPacker}) over every resource that has a capacity; the
  *       lower bound ({@link dev.numafit.pack.LowerBound}) says how close the packing is.
- *   <li>Hosts = {@code ceil(workers / workersPerHost) + hostFailures}.
+ *   <li>Workloads with placement rules (required anti-affinity and DoNotSchedule spread on their
+ *       own pods, over workers, hosts or zones, see {@link RuleMapping}) are packed by {@link
+ *       RulePacker}, which decides the host of every worker too; otherwise hosts = {@code
+ *       ceil(workers / workersPerHost)}.
+ *   <li>With {@code --host-failures K} or a zone failure, hosts = the smallest count that
+ *       survives the worst case ({@link RulePacker#hostsToSurvive}); the count without failures is
+ *       kept beside it.
  *   <li>Utilization per resource = (packed requests + per-worker demand × workers) / (allocatable
  *       × workers), 4 decimals; the binding resource has the highest.
  * </ol>
@@ -141,6 +150,9 @@ public final class Planner {
     fit.oversize().forEach(o -> oversizeIds.add(o.workload().toString()));
     List<long[]> rows = new ArrayList<>();
     List<String> podIds = new ArrayList<>();
+    List<RulePacker.Group> groups = new ArrayList<>();
+    List<Workload> grouped = new ArrayList<>();
+    PlacementOptions po = in.placementOptions();
     for (int i = 0; i < running.size(); i++) {
       Workload w = running.get(i);
       if (oversizeIds.contains(w.id().toString())) {
@@ -157,23 +169,107 @@ public final class Planner {
           podIds.add(w.id() + "#" + r);
         }
       }
+      groups.add(RuleMapping.group(w, row, replicas.get(i), po, notes));
+      grouped.add(w);
     }
     long[][] items = rows.toArray(new long[0][]);
-    Packing packing = packer.pack(items, capacity);
-    int workers = packing.bins();
-    int lowerBound = packing.lowerBound();
+    boolean ruled = groups.stream().anyMatch(RulePacker.Group::ruled);
+    boolean failures = in.hostFailures() > 0 || po.zoneFailures() > 0;
+    int perHost = in.workersPerHost().orElse(1);
+    if (ruled && in.workersPerHost().isEmpty()) {
+      notes.add("no host profile: each worker counts as its own host for rules on "
+          + PlacementRules.HOST_KEY);
+    }
+    RulePacker.Topology topo = new RulePacker.Topology(perHost, po.zones());
+    int workers;
+    int lowerBound;
+    int[] binOfItem;
+    RulePacker.Result layout = null;
+    if (ruled) {
+      List<RulePacker.Group> packed = new ArrayList<>(groups);
+      layout = RulePacker.pack(packed, capacity, topo);
+      binOfItem = layout.binOfItem();
+      workers = layout.bins();
+      List<Integer> unplaced = layout.unplaced();
+      if (!unplaced.isEmpty()) {
+        TreeMap<String, Integer> byWorkload = new TreeMap<>();
+        int[] groupOf = new int[items.length];
+        for (int g = 0, i = 0; g < groups.size(); g++) {
+          for (int j = 0; j < groups.get(g).count(); j++) {
+            groupOf[i++] = g;
+          }
+        }
+        for (int item : unplaced) {
+          byWorkload.merge(grouped.get(groupOf[item]).id().toString(), 1, Integer::sum);
+        }
+        byWorkload.forEach(
+            (id, n) ->
+                warnings.add(
+                    Diagnostic.warning(
+                        null,
+                        id + ": " + n + " pod(s) cannot be placed under its anti-affinity or"
+                            + " spread rules (not packed)")));
+      }
+      List<long[]> placedRows = new ArrayList<>();
+      for (int i = 0; i < items.length; i++) {
+        if (binOfItem[i] >= 0) {
+          placedRows.add(items[i]);
+        }
+      }
+      int bound = LowerBound.of(placedRows.toArray(new long[0][]), capacity);
+      // Pods that may not share a worker each need their own.
+      for (int g = 0; g < groups.size(); g++) {
+        if (groups.get(g).antiAffinity().contains(RulePacker.Domain.WORKER)) {
+          bound = Math.max(bound, groups.get(g).count());
+        }
+      }
+      lowerBound = Math.min(bound, workers);
+    } else {
+      Packing packing = packer.pack(items, capacity);
+      workers = packing.bins();
+      lowerBound = packing.lowerBound();
+      binOfItem = packing.binOfItem();
+      if (failures && in.workersPerHost().isPresent()) {
+        layout = RulePacker.fromPacking(binOfItem, workers, topo);
+      }
+    }
 
-    OptionalInt hosts =
-        in.workersPerHost().isPresent()
-            ? OptionalInt.of(
-                ceilDiv(workers, in.workersPerHost().getAsInt()) + in.hostFailures())
-            : OptionalInt.empty();
+    OptionalInt hosts = OptionalInt.empty();
+    OptionalInt hostsWithoutFailures = OptionalInt.empty();
+    if (in.workersPerHost().isPresent()) {
+      int plain =
+          ruled ? layout.hosts() : ceilDiv(workers, in.workersPerHost().getAsInt());
+      hosts = OptionalInt.of(plain);
+      if (failures) {
+        int extra = in.hostFailures() + 2
+            + (po.zoneFailures() > 0 ? plain / (po.zones() - 1) + po.zones() : 0);
+        RulePacker.FailureResult fr =
+            RulePacker.hostsToSurvive(
+                groups, capacity, topo, layout, in.hostFailures(), po.zoneFailures() > 0, extra);
+        hosts = OptionalInt.of(fr.hosts());
+        hostsWithoutFailures = OptionalInt.of(plain);
+        if (!fr.survives()) {
+          warnings.add(
+              Diagnostic.warning(
+                  null,
+                  "no host count up to " + fr.hosts() + " survives the failures asked for under"
+                      + " the placement rules; " + fr.hosts() + " is reported"));
+        }
+        if (!fr.exhaustive()) {
+          notes.add("too many sets of " + in.hostFailures() + " hosts to check each: the hosts"
+              + " carrying the most demand were taken as the worst case");
+        }
+      }
+    }
 
     // Utilization over all workers: packed requests plus what every worker carries anyway.
     long[] packed = new long[dims.length];
-    for (long[] row : items) {
+    for (int i = 0; i < items.length; i++) {
+      if (binOfItem[i] < 0) {
+        continue;
+      }
       for (int k = 0; k < dims.length; k++) {
-        packed[k] = Math.addExact(packed[k], row[k]);
+        packed[k] = Math.addExact(packed[k], items[i][k]);
       }
     }
     SortedMap<String, BigDecimal> exact = new TreeMap<>();
@@ -213,7 +309,9 @@ public final class Planner {
         byWorker.add(new ArrayList<>());
       }
       for (int i = 0; i < items.length; i++) {
-        byWorker.get(packing.binOf(i)).add(podIds.get(i));
+        if (binOfItem[i] >= 0) {
+          byWorker.get(binOfItem[i]).add(podIds.get(i));
+        }
       }
       int width = Math.max(3, Integer.toString(workers).length());
       List<WorkerPlacement> list = new ArrayList<>();
@@ -239,7 +337,8 @@ public final class Planner {
         placement,
         List.copyOf(unchecked),
         notes,
-        warnings);
+        warnings,
+        hostsWithoutFailures);
   }
 
   /** {@code worker-001}: numbered from 1, zero-padded so names sort in number order. */

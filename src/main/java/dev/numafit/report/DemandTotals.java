@@ -10,9 +10,10 @@ import dev.numafit.resource.Resources;
  *
  * @param requestsAtPeak cpu in millicores, the rest in bytes or counts
  */
-record DemandTotals(
+public record DemandTotals(
     long podsAtPeak, Resources requestsAtPeak, long perWorkerPods, Resources perWorkerRequests) {
-  static DemandTotals of(Demand d) {
+  /** Sums the demand's workloads. */
+  public static DemandTotals of(Demand d) {
     long pods = 0;
     Resources req = Resources.EMPTY;
     long wPods = 0;

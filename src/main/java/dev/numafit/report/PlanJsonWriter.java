@@ -56,6 +56,9 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
     m.put("workersNeeded", p.workersNeeded());
     m.put("lowerBound", p.lowerBound());
     m.put("hostsNeeded", p.hostsNeeded().isPresent() ? p.hostsNeeded().getAsInt() : null);
+    if (p.hostsNeededWithoutFailures().isPresent()) {
+      m.put("hostsNeededWithoutFailures", p.hostsNeededWithoutFailures().getAsInt());
+    }
     List<Object> over = new ArrayList<>();
     for (Oversize o : p.oversize()) {
       Map<String, Object> om = JsonSupport.object();

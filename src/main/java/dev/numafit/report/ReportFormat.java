@@ -9,7 +9,14 @@ public enum ReportFormat {
   /** Aligned tables for an 80-column terminal, binary units; warnings go to standard error. */
   TEXT("text"),
   /** A stable JSON document with sorted keys; warnings go into its {@code warnings} array. */
-  JSON("json");
+  JSON("json"),
+  /**
+   * One self-contained HTML page with inline SVG pictures and a table beside each; warnings are in
+   * the page.
+   */
+  HTML("html"),
+  /** The HTML report's sections as GitHub-flavoured Markdown tables, without the pictures. */
+  MARKDOWN("markdown");
 
   private final String label;
 

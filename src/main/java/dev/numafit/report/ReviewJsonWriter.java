@@ -18,6 +18,8 @@ import java.util.SortedMap;
  * counts; fractions with 4 decimals.
  */
 public final class ReviewJsonWriter implements ReportWriter<Review> {
+  private static final String NOT_READ = "not read: ";
+
   @Override
   public String render(Review r) {
     Map<String, Object> root = JsonSupport.object();
@@ -91,6 +93,8 @@ public final class ReviewJsonWriter implements ReportWriter<Review> {
     } else {
       root.put("hostFailures", null);
     }
+    root.put("missing", r.warnings().stream().filter(w -> w.startsWith(NOT_READ))
+        .map(w -> w.substring(NOT_READ.length())).toList());
     root.put("warnings", r.warnings());
     return JsonSupport.write(root);
   }

@@ -122,7 +122,7 @@ final class PoolState {
   }
 
   boolean fits(Node n, PodItem p) {
-    if (n.removed || !admits(n, p)) {
+    if (n.removed) {
       return false;
     }
     int pods = podsIndex();
@@ -134,7 +134,7 @@ final class PoolState {
         return false;
       }
     }
-    return true;
+    return admits(n, p);
   }
 
   /**

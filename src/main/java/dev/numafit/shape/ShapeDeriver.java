@@ -297,6 +297,55 @@ public final class ShapeDeriver {
    * node is a spanning worker, counted over groups of as many neighbouring nodes as it needs.
    */
   public HostFit workersPerHost(HostProfile profile, WorkerShape shape) {
+    return fitOf(profile, shape);
+  }
+
+  /**
+   * Where {@code shape}'s workers sit on one host: node by node when the shape fits a node, else in
+   * groups of as many neighbouring nodes as a spanning worker needs (the same count as {@link
+   * #workersPerHost}).
+   */
+  public HostLayout layout(HostProfile profile, WorkerShape shape) {
+    if (shape.vcpus() <= 0) {
+      throw new IllegalArgumentException("a worker needs at least one vCPU");
+    }
+    long need = Math.addExact(shape.memoryBytes(), profile.perVmOverheadBytes());
+    int nodes = profile.nodes().size();
+    long[] v = new long[nodes];
+    long[] m = new long[nodes];
+    long maxV = 0;
+    long maxM = 0;
+    int total = 0;
+    List<HostLayout.Group> single = new ArrayList<>();
+    for (int i = 0; i < nodes; i++) {
+      v[i] = nodeVcpus(profile, i);
+      m[i] = nodeMemoryForWorkers(profile, i);
+      maxV = Math.max(maxV, v[i]);
+      maxM = Math.max(maxM, m[i]);
+      int fit = (int) Math.min(v[i] / shape.vcpus(), need == 0 ? Long.MAX_VALUE : m[i] / need);
+      total += fit;
+      single.add(new HostLayout.Group(List.of(profile.nodes().get(i).id()), fit));
+    }
+    if (total > 0 || maxV == 0 || maxM == 0) {
+      return new HostLayout(single, false);
+    }
+    int span = SpanningSplit.of(shape.vcpus(), need, maxV, maxM).nodes();
+    List<HostLayout.Group> groups = new ArrayList<>();
+    for (int start = 0; start < nodes; start += span) {
+      long gv = 0;
+      long gm = 0;
+      List<Integer> ids = new ArrayList<>();
+      for (int i = start; i < Math.min(nodes, start + span); i++) {
+        gv += v[i];
+        gm += m[i];
+        ids.add(profile.nodes().get(i).id());
+      }
+      groups.add(new HostLayout.Group(ids, (int) Math.min(gv / shape.vcpus(), gm / need)));
+    }
+    return new HostLayout(groups, true);
+  }
+
+  private HostFit fitOf(HostProfile profile, WorkerShape shape) {
     if (shape.vcpus() <= 0) {
       throw new IllegalArgumentException("a worker needs at least one vCPU");
     }

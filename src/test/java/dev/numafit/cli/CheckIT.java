@@ -22,13 +22,22 @@ class CheckIT {
   record Result(int code, String out, String err) {}
 
   static Result run(String... args) throws IOException, InterruptedException {
+    return runWithPath(null, args);
+  }
+
+  /** Runs the jar; a non-null {@code path} replaces the PATH the process sees. */
+  static Result runWithPath(String path, String... args) throws IOException, InterruptedException {
     List<String> cmd = new ArrayList<>();
     cmd.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
     cmd.add("-jar");
     cmd.add(JAR.toString());
     cmd.addAll(List.of(args));
-    Process p = new ProcessBuilder(cmd).redirectInput(ProcessBuilder.Redirect.from(
-        new java.io.File("/dev/null"))).start();
+    ProcessBuilder pb = new ProcessBuilder(cmd).redirectInput(ProcessBuilder.Redirect.from(
+        new java.io.File("/dev/null")));
+    if (path != null) {
+      pb.environment().put("PATH", path);
+    }
+    Process p = pb.start();
     var err = new java.io.ByteArrayOutputStream();
     Thread drain = new Thread(() -> {
       try {
@@ -89,5 +98,16 @@ class CheckIT {
     assertEquals("", r.out());
     assertEquals(Files.readString(Path.of("src/test/resources/check/golden/change.sarif")),
         Files.readString(out));
+  }
+
+  @Test
+  void check_baselineGitWithoutGit_exitsTwoWithClearMessage(@TempDir Path empty)
+      throws Exception {
+    // A PATH holding only an empty folder: no git command to start.
+    Result r = runWithPath(empty.toString(), "check", "-f", "manifests-examples/parcel-delivery/",
+        "--worker", "cpu=16,memory=64Gi", "--baseline-git", "HEAD");
+    assertEquals(2, r.code(), r.out());
+    assertTrue(r.err().contains("error: --baseline-git needs the git command line, but \"git\""
+        + " could not be started"), r.err());
   }
 }

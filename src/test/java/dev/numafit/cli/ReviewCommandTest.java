@@ -138,4 +138,23 @@ class ReviewCommandTest {
     assertEquals(f + ":4: error: capacity.cpu is \"four\" (expected an integer: cpu in"
         + " millicores, others in bytes or counts)\n", r.err());
   }
+
+  @Test
+  void review_partialSnapshot_statesTheMissingTypesAtTheTop() throws Exception {
+    Pools p = ReviewerTest.tenWorkers();
+    dev.numafit.cluster.model.ClusterModel m = p.model();
+    Path f = dir.resolve("partial.json");
+    Files.writeString(f, SnapshotFile.toText(new dev.numafit.cluster.model.ClusterModel(
+        m.server(), m.namespace(), m.nodes(), m.pods(), m.budgets(), m.workloads(),
+        java.util.List.of("policy/poddisruptionbudgets: 403 Forbidden (the drain plan ignores"
+            + " disruption budgets)"), java.util.List.of())));
+    CliRun text = CliRun.of("review", "--snapshot", f.toString(), "--pool", "pool=general");
+    String[] lines = text.out().split("\n");
+    assertEquals("Incomplete read, these types are missing:", lines[2]);
+    assertEquals("  - policy/poddisruptionbudgets: 403 Forbidden (the drain plan ignores", lines[3]);
+    CliRun json = CliRun.of("review", "--snapshot", f.toString(), "--pool", "pool=general",
+        "-o", "json");
+    JsonNode doc = JsonMapper.builder().build().readTree(json.out());
+    assertEquals(1, doc.get("missing").size());
+  }
 }

@@ -98,4 +98,29 @@ class SnapshotCommandTest {
     assertEquals(2, r.code());
     assertEquals(dir.resolve("none") + ": error: cannot read kubeconfig: no such file\n", r.err());
   }
+
+  @Test
+  void review_liveThroughKubeconfig_readsTheClusterAndFits() throws Exception {
+    CliRun r = CliRun.of("review", "--kubeconfig", kubeconfig().toString(), "--pool",
+        "pool=general", "-o", "json");
+    assertEquals(0, r.code(), r.err());
+    assertTrue(r.out().contains("\"podsConsidered\": 1"), r.out());
+  }
+
+  @Test
+  void snapshot_stderrIsATerminal_showsProgressPerType() throws Exception {
+    // The launcher passes [ -t 2 ] as numafit.stderrTty=1.
+    System.setProperty("numafit.stderrTty", "1");
+    try {
+      CliRun r = CliRun.of("snapshot", "--kubeconfig", kubeconfig().toString(), "--out",
+          dir.resolve("p.json").toString());
+      assertEquals(0, r.code(), r.err());
+      assertTrue(r.err().contains("pods: 1 read, 1 page"), r.err());
+    } finally {
+      System.clearProperty("numafit.stderrTty");
+    }
+    CliRun quiet = CliRun.of("snapshot", "--kubeconfig", kubeconfig().toString(), "--out",
+        dir.resolve("q.json").toString());
+    assertFalse(quiet.err().contains("read,"), quiet.err());
+  }
 }

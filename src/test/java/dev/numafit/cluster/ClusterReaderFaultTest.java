@@ -22,7 +22,6 @@ import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.Optional;
-import java.util.Set;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
 
@@ -128,6 +127,8 @@ class ClusterReaderFaultTest {
     assertTrue(reqs.stream().allMatch(r -> r.getMethod().equals("GET")));
     assertEquals(6, reqs.stream().filter(r -> r.getPath().startsWith("/api/v1/pods")).count());
     assertTrue(m.missing().isEmpty() && m.warnings().isEmpty(), m.warnings().toString());
+    // The snapshot of the paged read reads back equal.
+    assertEquals(m, SnapshotFile.parse(SnapshotFile.toText(m), "paged.json"));
   }
 
   @Test
@@ -260,9 +261,5 @@ class ClusterReaderFaultTest {
 
   static String message(InputException ex) {
     return ex.diagnostics().get(0).format();
-  }
-
-  static Set<ResourceType> all() {
-    return EnumSet.allOf(ResourceType.class);
   }
 }

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.numafit.demand.Demand;
 import dev.numafit.demand.EffectivePod;
+import dev.numafit.demand.PlacementRules;
 import dev.numafit.demand.QosClass;
 import dev.numafit.demand.Replicas;
 import dev.numafit.demand.Workload;
@@ -317,5 +318,38 @@ class PlannerTest {
     PlanInput in = input(ALLOCATABLE, OptionalInt.of(2), List.of(), Resources.EMPTY, 0, 90, "1.2",
         true);
     assertEquals(new Planner().plan(d, in), new Planner().plan(d, in));
+  }
+
+  @Test
+  void plan_hostFailureWithHostAntiAffinity_reportsBothCounts() {
+    // Hand-worked (see RulePackerTest.hostsToSurvive_hostAntiAffinity_handCount): two workers per
+    // host; web: two 3000m pods; db: three 1000m pods with required anti-affinity on our host
+    // label. 4 workers on 3 hosts without failures; surviving the loss of any one host needs 4.
+    Workload web = deployment("web", 2, Resources.of("cpu", 3000L, "memory", GI));
+    Workload db =
+        deployment("db", 3, Resources.of("cpu", 1000L, "memory", GI))
+            .withRules(PlacementRules.NONE.withAntiAffinity(PlacementRules.HOST_KEY));
+    Plan p =
+        new Planner()
+            .plan(
+                demand(web, db),
+                input(ALLOCATABLE, OptionalInt.of(2), List.of(), Resources.EMPTY, 1, 100, "1",
+                    false));
+    assertEquals(4, p.workersNeeded());
+    assertEquals(OptionalInt.of(4), p.hostsNeeded());
+    assertEquals(OptionalInt.of(3), p.hostsNeededWithoutFailures());
+  }
+
+  @Test
+  void plan_noFailuresAsked_noCountWithoutFailures() {
+    Plan p =
+        new Planner()
+            .plan(
+                demand(deployment("api", 6, Resources.of("cpu", 1000L, "memory", GI))),
+                input(ALLOCATABLE, OptionalInt.of(2), List.of(), Resources.EMPTY, 0, 100, "1",
+                    false));
+    // Six 1000m pods on 4000m workers: 2 workers, one host of two workers (by hand).
+    assertEquals(OptionalInt.of(1), p.hostsNeeded());
+    assertEquals(OptionalInt.empty(), p.hostsNeededWithoutFailures());
   }
 }

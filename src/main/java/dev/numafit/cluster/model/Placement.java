@@ -30,6 +30,9 @@ public record Placement(
 
   /** Whether a node with these labels satisfies the node selector and the required affinity. */
   public boolean allowsLabels(Map<String, String> labels) {
+    if (nodeSelector.isEmpty() && requiredTerms.isEmpty()) {
+      return true;
+    }
     for (Map.Entry<String, String> e : nodeSelector.entrySet()) {
       if (!e.getValue().equals(labels.get(e.getKey()))) {
         return false;
@@ -48,6 +51,9 @@ public record Placement(
 
   /** The first taint (in the node's order) that blocks scheduling and no toleration tolerates. */
   public Optional<Taint> untolerated(List<Taint> taints) {
+    if (taints.isEmpty()) {
+      return Optional.empty();
+    }
     for (Taint t : taints) {
       if (!t.blocksScheduling()) {
         continue;

@@ -3,7 +3,6 @@ package dev.numafit.report.check;
 import dev.numafit.check.CheckReport;
 import dev.numafit.check.Finding;
 import dev.numafit.report.Units;
-import dev.numafit.resource.Resources;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -43,11 +42,6 @@ final class CheckText {
           : Units.amount(e.getKey(), e.getValue())));
     }
     return String.join(", ", parts);
-  }
-
-  /** Whether a vector is empty; here so writers need not import Resources for one call. */
-  static boolean none(Resources r) {
-    return r.isEmpty();
   }
 
   /** {@code new, fails} / {@code existing} / {@code new}: the status words of an entry. */
