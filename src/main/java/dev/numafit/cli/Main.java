@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Optional;
 import picocli.CommandLine;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.ParseResult;
@@ -71,6 +72,11 @@ public final class Main {
     Console console = new Console(in, out, err, workingDir, colour, stdout);
     boolean verbose = Arrays.asList(args).contains("--verbose");
     Errors errors = new Errors(console, verbose);
+    Optional<String> overInput = outputOverInput(args, workingDir);
+    if (overInput.isPresent()) {
+      console.error(overInput.get());
+      return ExitCode.USAGE_OR_INPUT.code();
+    }
     String[] effective;
     try {
       effective = withConfig(args, console);
@@ -84,6 +90,58 @@ public final class Main {
     cl.getErr().flush();
     out.flush();
     return code;
+  }
+
+  /**
+   * A sentence when {@code --out FILE} names one of the run's inputs (the same file, or a
+   * manifest file inside an input folder): writing there would destroy an input or feed the
+   * report back in as one on the next run. Checked before anything is read.
+   */
+  static Optional<String> outputOverInput(String[] args, Path workingDir) {
+    Optional<String> outArg = Optional.empty();
+    int outIndex = -1;
+    for (int i = 0; i < args.length; i++) {
+      if (args[i].equals("--out") && i + 1 < args.length) {
+        outArg = Optional.of(args[i + 1]);
+        outIndex = i + 1;
+      } else if (args[i].startsWith("--out=")) {
+        outArg = Optional.of(args[i].substring("--out=".length()));
+        outIndex = i;
+      }
+    }
+    if (outArg.isEmpty()) {
+      return Optional.empty();
+    }
+    Path out = workingDir.resolve(outArg.get()).toAbsolutePath().normalize();
+    for (int i = 0; i < args.length; i++) {
+      String a = args[i];
+      if (i == outIndex || a.startsWith("-") && !a.contains("=")) {
+        continue;
+      }
+      String value = a.startsWith("-") ? a.substring(a.indexOf('=') + 1) : a;
+      Path in;
+      try {
+        in = workingDir.resolve(value).toAbsolutePath().normalize();
+      } catch (java.nio.file.InvalidPathException ex) {
+        continue;
+      }
+      boolean same;
+      try {
+        same = Files.exists(out) && Files.exists(in) && Files.isSameFile(out, in);
+      } catch (java.io.IOException ex) {
+        same = false;
+      }
+      String name = out.getFileName() == null ? "" : out.getFileName().toString();
+      boolean manifestInFolder = Files.isDirectory(in) && out.startsWith(in)
+          && (name.endsWith(".yaml") || name.endsWith(".yml") || name.endsWith(".json"));
+      if (same || in.equals(out) && Files.exists(in) || manifestInFolder) {
+        return Optional.of("--out " + outArg.get() + (same || in.equals(out)
+            ? " is also an input of this run"
+            : " lies in the input folder " + value + " and would be read as input next time")
+            + "; numafit never writes its output over its inputs (choose another file)");
+      }
+    }
+    return Optional.empty();
   }
 
   private static CommandLine commandLine(Console console, Errors errors) {
