@@ -21,9 +21,9 @@ import java.util.Set;
  * zones. A new worker goes on the first host with a free slot where the pod may run, else on a
  * new host.
  *
- * <p>The search: groups with spread constraints first (each pod to the allowed worker whose
- * domains hold the fewest pods of its group, zones taken in turn), then the others by
- * first-fit-decreasing on the largest normalised demand. Spread is checked on the final layout,
+ * <p>The search: groups by first-fit-decreasing on the largest normalised demand; a pod with
+ * spread constraints goes to the allowed worker whose domains hold the fewest pods of its group
+ * (zones taken in turn). Spread is checked on the final layout,
  * since workers opened later are domains with no pods: when it fails, the packing is redone with
  * that many workers open from the start (a few rounds), and as a last resort with at most maxSkew
  * pods per worker or host, which always satisfies the constraint. Deterministic: no randomness,
@@ -201,7 +201,7 @@ public final class RulePacker {
       if (round > 0 && l.bins() <= preopenHosts.length) {
         break; // opening the same workers again would give the same layout
       }
-      preopenHosts = l.hostOf.stream().mapToInt(Integer::intValue).toArray();
+      preopenHosts = Arrays.copyOf(l.hostOf, l.nBins);
     }
     Layout strict = new Layout(groups, capacity, topo, true);
     strict.placeAll(order);
@@ -353,6 +353,16 @@ public final class RulePacker {
     int item = 0;
     for (int g = 0; g < groups.size(); g++) {
       Group gr = groups.get(g);
+      if (!gr.ruled()) {
+        // No rule to break: only its load counts.
+        for (int j = 0; j < gr.count; j++, item++) {
+          int b = r.binOfItem[item];
+          for (int k = 0; b >= 0 && k < d; k++) {
+            load[b][k] += gr.demand[k];
+          }
+        }
+        continue;
+      }
       int[] perBin = new int[r.bins()];
       int[] perH = new int[perHost.length];
       int[] perZ = new int[topo.zones()];
@@ -405,7 +415,10 @@ public final class RulePacker {
 
   // --- internals -----------------------------------------------------------------------------
 
-  /** Spread groups first, then largest normalised demand first; ties by input order. */
+  /**
+   * Largest normalised demand first; ties by input order. (Placing spread groups first was
+   * tried: on the 150,000-pod benchmark it used 6,405 workers against 5,449 in plain size order.)
+   */
   static int[] order(List<Group> groups, long[] capacity) {
     Integer[] idx = new Integer[groups.size()];
     double[] key = new double[groups.size()];
@@ -422,11 +435,6 @@ public final class RulePacker {
     Arrays.sort(
         idx,
         (a, b) -> {
-          boolean sa = !groups.get(a).maxSkew.isEmpty();
-          boolean sb = !groups.get(b).maxSkew.isEmpty();
-          if (sa != sb) {
-            return sa ? -1 : 1;
-          }
           int c = Double.compare(key[b], key[a]);
           return c != 0 ? c : Integer.compare(a, b);
         });
@@ -498,14 +506,21 @@ public final class RulePacker {
     final Topology topo;
     /** At most maxSkew pods per worker or host: always satisfies spread, may use more workers. */
     final boolean strict;
-    final List<long[]> load = new ArrayList<>();
-    final List<Integer> hostOf = new ArrayList<>();
+    /** Loads flat, {@code loads[b * d + k]}, and the host of each worker: no per-worker objects. */
+    long[] loads = new long[0];
+    int[] hostOf = new int[0];
+    int nBins;
     final List<Integer> workersOnHost = new ArrayList<>();
     final Map<Long, Integer> counts = new HashMap<>();
     /** Per group and domain: how many domains hold at least one pod of the group. */
     final int[][] occupied;
     final int[] starts;
     final int[] binOfItem;
+    /** Per group, the worker to start looking from (see {@link #place}). */
+    final int[] resume;
+    int hostsWithWorkers;
+    int zonesWithWorkers;
+    final int[] hostsInZone;
     /** When set, no host at or beyond this number may be used, and lost hosts not at all. */
     int hostLimit = Integer.MAX_VALUE;
     boolean[] lostHosts;
@@ -526,10 +541,12 @@ public final class RulePacker {
       }
       this.binOfItem = new int[n];
       Arrays.fill(binOfItem, -1);
+      this.resume = new int[groups.size()];
+      this.hostsInZone = new int[topo.zones()];
     }
 
     int bins() {
-      return load.size();
+      return nBins;
     }
 
     void ensureHost(int h) {
@@ -540,14 +557,28 @@ public final class RulePacker {
 
     int openWorker(int h) {
       ensureHost(h);
-      workersOnHost.set(h, workersOnHost.get(h) + 1);
-      load.add(new long[d]);
-      hostOf.add(h);
-      return load.size() - 1;
+      int before = workersOnHost.get(h);
+      workersOnHost.set(h, before + 1);
+      if (before == 0) {
+        hostsWithWorkers++;
+        if (hostsInZone[topo.zoneOf(h)]++ == 0) {
+          zonesWithWorkers++;
+        }
+      }
+      if (nBins == hostOf.length) {
+        int cap = Math.max(16, nBins * 2);
+        hostOf = Arrays.copyOf(hostOf, cap);
+        loads = Arrays.copyOf(loads, cap * d);
+      }
+      hostOf[nBins] = h;
+      return nBins++;
     }
 
     private static long key(int g, Domain dom, int idx) {
-      return ((long) g << 34) | ((long) dom.ordinal() << 32) | (idx & 0xffffffffL);
+      // Multiplying by an odd constant is one-to-one, and spreads the bits Long.hashCode folds
+      // together (group and index would otherwise collide in the map's buckets).
+      return (((long) g << 34) | ((long) dom.ordinal() << 32) | (idx & 0xffffffffL))
+          * 0x9E3779B97F4A7C15L;
     }
 
     int count(int g, Domain dom, int idx) {
@@ -562,13 +593,13 @@ public final class RulePacker {
     }
 
     void add(int g, int b) {
-      long[] row = load.get(b);
       long[] w = groups.get(g).demand;
+      int at = b * d;
       for (int k = 0; k < d; k++) {
-        row[k] += w[k];
+        loads[at + k] += w[k];
       }
       if (groups.get(g).ruled()) {
-        int h = hostOf.get(b);
+        int h = hostOf[b];
         bump(g, Domain.WORKER, b);
         bump(g, Domain.HOST, h);
         bump(g, Domain.ZONE, topo.zoneOf(h));
@@ -576,10 +607,10 @@ public final class RulePacker {
     }
 
     boolean fits(int g, int b) {
-      long[] row = load.get(b);
       long[] w = groups.get(g).demand;
+      int at = b * d;
       for (int k = 0; k < d; k++) {
-        if (row[k] + w[k] > cap[k]) {
+        if (loads[at + k] + w[k] > cap[k]) {
           return false;
         }
       }
@@ -588,28 +619,11 @@ public final class RulePacker {
 
     /** Domains of each kind that have workers now (the scheduler's domains). */
     private int domains(Domain dom) {
-      switch (dom) {
-        case WORKER:
-          return load.size();
-        case HOST: {
-          int n = 0;
-          for (int c : workersOnHost) {
-            n += c > 0 ? 1 : 0;
-          }
-          return n;
-        }
-        default: {
-          boolean[] z = new boolean[topo.zones()];
-          int n = 0;
-          for (int h = 0; h < workersOnHost.size(); h++) {
-            if (workersOnHost.get(h) > 0 && !z[topo.zoneOf(h)]) {
-              z[topo.zoneOf(h)] = true;
-              n++;
-            }
-          }
-          return n;
-        }
-      }
+      return switch (dom) {
+        case WORKER -> nBins;
+        case HOST -> hostsWithWorkers;
+        case ZONE -> zonesWithWorkers;
+      };
     }
 
     /** The smallest count of the group's pods over the domains that have workers. */
@@ -619,7 +633,7 @@ public final class RulePacker {
         return 0;
       }
       int min = Integer.MAX_VALUE;
-      int n = dom == Domain.WORKER ? load.size()
+      int n = dom == Domain.WORKER ? nBins
           : dom == Domain.HOST ? workersOnHost.size() : topo.zones();
       for (int x = 0; x < n; x++) {
         int c = count(g, dom, x);
@@ -652,7 +666,7 @@ public final class RulePacker {
       if (!groups.get(g).ruled()) {
         return true;
       }
-      int h = hostOf.get(b);
+      int h = hostOf[b];
       int z = topo.zoneOf(h);
       return (zone < 0 || z == zone)
           && allowedIn(g, Domain.WORKER, b)
@@ -725,32 +739,50 @@ public final class RulePacker {
           gr.maxSkew.containsKey(Domain.WORKER) || gr.maxSkew.containsKey(Domain.HOST);
       int best = -1;
       long bestKey = Long.MAX_VALUE;
-      for (int b = 0; b < load.size(); b++) {
-        steps++;
-        if (lostHosts != null && lostHosts[hostOf.get(b)]) {
-          continue;
-        }
-        if (!fits(g, b) || !allowed(g, b, zone)) {
-          continue;
-        }
-        if (!spread || rescheduling) {
-          best = b;
-          break;
-        }
-        long k = 0;
-        if (gr.maxSkew.containsKey(Domain.WORKER)) {
-          k += count(g, Domain.WORKER, b);
-        }
-        if (gr.maxSkew.containsKey(Domain.HOST)) {
-          k += count(g, Domain.HOST, hostOf.get(b));
-        }
-        if (k < bestKey) {
-          bestKey = k;
-          best = b;
-          if (k == 0) {
+      // Loads and counts only grow while packing, so a worker that could not take a pod of this
+      // group (no room, or already one under anti-affinity) cannot later: later pods of the group
+      // start where the last one was placed (also when rescheduling: the layout only fills up).
+      // Spread and zone turns can re-allow a worker, so they scan from the start.
+      boolean monotone = gr.maxSkew.isEmpty() && zone < 0;
+      // With spread over workers or hosts, the first worker that fits and whose worker and host
+      // hold none of the group's pods is the best choice; workers before the last such one had
+      // pods of the group (on them or their host) or no room, and still do, since counts and
+      // loads only grow. When none is found from there, the whole list is scanned for the fewest.
+      boolean workerSpreadOnly = !rescheduling && spread;
+      int from = monotone || workerSpreadOnly ? resume[g] : 0;
+      while (true) {
+        for (int b = from; b < nBins; b++) {
+          steps++;
+          if (lostHosts != null && lostHosts[hostOf[b]]) {
+            continue;
+          }
+          if (!fits(g, b) || !allowed(g, b, zone)) {
+            continue;
+          }
+          if (!spread || rescheduling) {
+            best = b;
             break;
           }
+          long k = 0;
+          if (gr.maxSkew.containsKey(Domain.WORKER)) {
+            k += count(g, Domain.WORKER, b);
+          }
+          if (gr.maxSkew.containsKey(Domain.HOST)) {
+            k += count(g, Domain.HOST, hostOf[b]);
+          }
+          if (k < bestKey) {
+            bestKey = k;
+            best = b;
+            if (k == 0) {
+              break;
+            }
+          }
         }
+        if (workerSpreadOnly && from > 0 && bestKey != 0) {
+          from = 0;
+          continue;
+        }
+        break;
       }
       if (best < 0) {
         int h = 0;
@@ -773,24 +805,27 @@ public final class RulePacker {
       if (!rescheduling) {
         binOfItem[starts[g] + j] = best;
       }
+      if (monotone || (workerSpreadOnly && bestKey == 0)) {
+        resume[g] = best;
+      }
       return best;
     }
 
     /** Drops workers that ended up empty and trailing hosts without workers. */
     Result compact(long totalSteps) {
-      int[] renumber = new int[load.size()];
+      int[] renumber = new int[nBins];
       List<Integer> hosts = new ArrayList<>();
-      boolean[] used = new boolean[load.size()];
+      boolean[] used = new boolean[nBins];
       for (int b : binOfItem) {
         if (b >= 0) {
           used[b] = true;
         }
       }
       int n = 0;
-      for (int b = 0; b < load.size(); b++) {
+      for (int b = 0; b < nBins; b++) {
         if (used[b]) {
           renumber[b] = n++;
-          hosts.add(hostOf.get(b));
+          hosts.add(hostOf[b]);
         } else {
           renumber[b] = -1;
         }
