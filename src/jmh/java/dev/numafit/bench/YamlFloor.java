@@ -10,8 +10,9 @@ import tools.jackson.dataformat.yaml.YAMLMapper;
 /**
  * The floor for the whole-process benchmark: reads a YAML file with the Jackson YAML mapper
  * configured as the manifest reader configures it, into one JsonNode tree per document, and does
- * nothing else. No planner can read manifests faster than this. Run: {@code java -cp
- * target/numafit.jar dev.numafit.bench.YamlFloor FILE} with the launcher's JVM options.
+ * nothing else. No planner can read manifests faster than this. Run with the launcher's JVM
+ * options; bench/compare.sh runs it from jars only ({@code target/bench/floor.jar} and the
+ * dependency jars), as the plan runs from its jar, so a class-data-sharing archive covers both.
  */
 public final class YamlFloor {
   private YamlFloor() {}

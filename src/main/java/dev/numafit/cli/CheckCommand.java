@@ -138,7 +138,7 @@ public final class CheckCommand implements Callable<Integer> {
   String baselineGit;
 
   @Option(names = {"-o", "--output"}, paramLabel = "FORMAT",
-      description = "Output format: text, json, markdown, sarif or junit (default: text).")
+      description = "Output format: text, json, markdown, sarif, junit or html (default: text).")
   String output = "text";
 
   @Option(names = "--out", paramLabel = "FILE",

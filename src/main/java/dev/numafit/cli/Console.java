@@ -2,6 +2,7 @@ package dev.numafit.cli;
 
 import dev.numafit.diag.Diagnostic;
 import dev.numafit.diag.Severity;
+import dev.numafit.report.TextStyle;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.nio.file.Path;
@@ -14,14 +15,26 @@ import java.util.Objects;
  * @param workingDir the folder {@code numafit.yaml} is looked for in
  * @param colour whether diagnostics on standard error may use ANSI colour (stderr is a terminal and
  *     NO_COLOR is unset)
+ * @param stdout colour and width for text reports on standard output
  */
 record Console(
-    InputStream in, PrintStream out, PrintStream err, Path workingDir, boolean colour) {
+    InputStream in,
+    PrintStream out,
+    PrintStream err,
+    Path workingDir,
+    boolean colour,
+    TextStyle stdout) {
   Console {
     Objects.requireNonNull(in, "in");
     Objects.requireNonNull(out, "out");
     Objects.requireNonNull(err, "err");
     Objects.requireNonNull(workingDir, "workingDir");
+    Objects.requireNonNull(stdout, "stdout");
+  }
+
+  /** A console whose standard output is not a terminal. */
+  Console(InputStream in, PrintStream out, PrintStream err, Path workingDir, boolean colour) {
+    this(in, out, err, workingDir, colour, TextStyle.PLAIN);
   }
 
   /** Prints one diagnostic as {@code file:line: severity: message} on standard error. */

@@ -1,6 +1,7 @@
 package dev.numafit.cli;
 
 import dev.numafit.diag.InputException;
+import dev.numafit.report.TextStyle;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.io.PrintWriter;
@@ -27,9 +28,15 @@ public final class Main {
   public static void main(String... args) {
     boolean colour =
         "1".equals(System.getProperty("numafit.stderrTty")) && System.getenv("NO_COLOR") == null;
+    // The launcher passes what [ -t 1 ] says and the terminal's width.
+    TextStyle stdout =
+        TextStyle.of(
+            "1".equals(System.getProperty("numafit.stdoutTty")),
+            System.getenv("NO_COLOR"),
+            System.getProperty("numafit.columns", System.getenv("COLUMNS")));
     PrintStream out = new PrintStream(System.out, false, StandardCharsets.UTF_8);
     PrintStream err = new PrintStream(System.err, true, StandardCharsets.UTF_8);
-    int code = run(args, System.in, out, err, Path.of("").toAbsolutePath(), colour);
+    int code = run(args, System.in, out, err, Path.of("").toAbsolutePath(), colour, stdout);
     out.flush();
     err.flush();
     System.exit(code);
@@ -50,7 +57,18 @@ public final class Main {
       PrintStream err,
       Path workingDir,
       boolean colour) {
-    Console console = new Console(in, out, err, workingDir, colour);
+    return run(args, in, out, err, workingDir, colour, TextStyle.PLAIN);
+  }
+
+  static int run(
+      String[] args,
+      InputStream in,
+      PrintStream out,
+      PrintStream err,
+      Path workingDir,
+      boolean colour,
+      TextStyle stdout) {
+    Console console = new Console(in, out, err, workingDir, colour, stdout);
     boolean verbose = Arrays.asList(args).contains("--verbose");
     Errors errors = new Errors(console, verbose);
     String[] effective;

@@ -26,6 +26,7 @@ import dev.numafit.report.PlanReport;
 import dev.numafit.report.PlanTextWriter;
 import dev.numafit.report.ReportFormat;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.TextStyle;
 import dev.numafit.report.html.PlanHtmlWriter;
 import dev.numafit.report.kubelet.KubeletConfigWriter;
 import dev.numafit.resource.Resources;
@@ -96,7 +97,7 @@ final class Pipeline {
     if (o.kubeletConfigDir().isPresent()) {
       writeKubeletConfigs(o, plans, shapes);
     }
-    ReportWriter<PlanReport> writer = planWriter(o.format());
+    ReportWriter<PlanReport> writer = planWriter(o.format(), console.stdout());
     if (o.format() == ReportFormat.TEXT) {
       report.warnings().forEach(console::report);
     }
@@ -222,9 +223,9 @@ final class Pipeline {
   }
 
   /** The writer of each format for plan reports. */
-  static ReportWriter<PlanReport> planWriter(ReportFormat format) {
+  static ReportWriter<PlanReport> planWriter(ReportFormat format, TextStyle style) {
     return switch (format) {
-      case TEXT -> new PlanTextWriter();
+      case TEXT -> new PlanTextWriter(style);
       case JSON -> new PlanJsonWriter();
       case HTML -> new PlanHtmlWriter();
       case MARKDOWN -> new PlanMarkdownWriter();

@@ -16,12 +16,25 @@ import java.util.List;
  * error.
  */
 public final class PlanTextWriter implements ReportWriter<PlanReport> {
+  private final TextStyle style;
+
+  /** Plain text at 80 columns, for files and pipes. */
+  public PlanTextWriter() {
+    this(TextStyle.PLAIN);
+  }
+
+  /** Text fitted to {@code style}'s width, with colour when it allows. */
+  public PlanTextWriter(TextStyle style) {
+    this.style = java.util.Objects.requireNonNull(style, "style");
+  }
+
   @Override
   public String render(PlanReport report) {
     StringBuilder sb = new StringBuilder();
     DemandTotals t = DemandTotals.of(report.demand());
     sb.append(
         TextSupport.wrap(
+            style.width(),
             "",
             "  ",
             "Demand: "
@@ -34,6 +47,7 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     if (!report.demand().unsizedCustom().isEmpty()) {
       sb.append(
           TextSupport.wrap(
+              style.width(),
               "",
               "  ",
               "Not sized: "
@@ -46,19 +60,21 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
       sb.append(DemandTextWriter.skippedLine(report.demand().skippedByKind()));
     }
     for (Plan p : report.plans()) {
-      sb.append('\n').append(plan(p));
+      sb.append('\n').append(plan(p, report));
     }
     if (!report.comparison().isEmpty()) {
       sb.append('\n').append(comparison(report));
     }
-    sb.append('\n').append(TextSupport.wrap("", "", TextSupport.CAUTION));
+    sb.append('\n').append(TextSupport.wrap(style.width(), "", "", TextSupport.CAUTION));
     return sb.toString();
   }
 
-  private static String plan(Plan p) {
+  private String plan(Plan p, PlanReport report) {
     StringBuilder sb = new StringBuilder();
     sb.append(
-        p.hostProfile().map(n -> "Plan for host profile " + n).orElse("Plan for the given worker"))
+        style.paint("1",
+            p.hostProfile().map(n -> "Plan for host profile " + n)
+                .orElse("Plan for the given worker")))
         .append('\n');
     WorkerShape w = p.worker();
     kv(sb, "Worker", List.of(shape(w)));
@@ -98,6 +114,7 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
                     : "no larger shape known (give a --host-profile to compare)";
         sb.append(
             TextSupport.wrap(
+                style.width(),
                 "    " + x.workload() + ": ",
                 "      ",
                 "over by " + Units.vector(x.exceeds()) + "; " + fits + "."));
@@ -106,18 +123,21 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     if (!p.unchecked().isEmpty()) {
       sb.append(
           TextSupport.wrap(
+              style.width(),
               "  ",
               "    ",
               "Not checked: " + String.join(", ", p.unchecked()) + ", no capacity given."));
     }
     for (String note : p.notes()) {
-      sb.append(TextSupport.wrap("  Note: ", "    ", note));
+      sb.append(TextSupport.wrap(style.width(), "  Note: ", "    ", note));
     }
+    report.hostOf(p).ifPresent(h -> sb.append(HostDiagram.render(h, p, style)));
     if (p.placement().isPresent()) {
       sb.append("  Placement:\n");
       for (WorkerPlacement wp : p.placement().get()) {
         sb.append(
             TextSupport.wrap(
+                style.width(),
                 "    " + wp.worker() + ": ",
                 "      ",
                 wp.pods().isEmpty() ? "(empty)" : String.join(" ", wp.pods())));
@@ -129,10 +149,11 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
   private static final int LABEL = 18;
 
   /** One {@code label  value} line, the value's items wrapped under each other. */
-  private static void kv(StringBuilder sb, String label, List<String> items) {
+  private void kv(StringBuilder sb, String label, List<String> items) {
     String first = "  " + label + " ".repeat(LABEL - label.length());
     sb.append(
         TextSupport.wrapItems(
+            style.width(),
             first, " ".repeat(first.length()), items.isEmpty() ? List.of("none") : items));
   }
 
@@ -149,7 +170,7 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     return w.vcpus() + " vCPU, " + Units.bytes(w.memoryBytes()) + " memory (" + where + ")";
   }
 
-  private static String comparison(PlanReport report) {
+  private String comparison(PlanReport report) {
     StringBuilder sb = new StringBuilder("Comparison:\n");
     TextTable t =
         new TextTable(

@@ -14,6 +14,11 @@ final class TextSupport {
    * first}, the rest after {@code next}; a word longer than a line is kept whole.
    */
   static String wrap(String first, String next, String text) {
+    return wrap(WIDTH, first, next, text);
+  }
+
+  /** {@link #wrap(String, String, String)} at {@code width} columns. */
+  static String wrap(int width, String first, String next, String text) {
     StringBuilder out = new StringBuilder();
     StringBuilder line = new StringBuilder(first);
     boolean lineHasWord = false;
@@ -21,7 +26,7 @@ final class TextSupport {
       if (word.isEmpty()) {
         continue;
       }
-      if (lineHasWord && line.length() + 1 + word.length() > WIDTH) {
+      if (lineHasWord && line.length() + 1 + word.length() > width) {
         out.append(line).append('\n');
         line = new StringBuilder(next);
         lineHasWord = false;
@@ -41,12 +46,17 @@ final class TextSupport {
    * item, the first line after {@code first}, the rest after {@code next}.
    */
   static String wrapItems(String first, String next, java.util.List<String> items) {
+    return wrapItems(WIDTH, first, next, items);
+  }
+
+  /** {@link #wrapItems(String, String, java.util.List)} at {@code width} columns. */
+  static String wrapItems(int width, String first, String next, java.util.List<String> items) {
     StringBuilder out = new StringBuilder();
     StringBuilder line = new StringBuilder(first);
     boolean lineHasItem = false;
     for (int i = 0; i < items.size(); i++) {
       String item = items.get(i) + (i < items.size() - 1 ? "," : "");
-      if (lineHasItem && line.length() + 1 + item.length() > WIDTH) {
+      if (lineHasItem && line.length() + 1 + item.length() > width) {
         out.append(line).append('\n');
         line = new StringBuilder(next);
         lineHasItem = false;

@@ -1,6 +1,7 @@
 package dev.numafit.it;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
@@ -80,5 +81,48 @@ class LauncherIT {
     String[] r = run(link, "demand", "--help");
     assertEquals("0", r[0], r[2]);
     assertTrue(r[1].startsWith("Usage: numafit demand"), r[1]);
+  }
+
+  @Test
+  void launcher_onATerminal_coloursAndFitsItsWidth_unlessNoColor() throws Exception {
+    // script(1) runs the launcher on a pseudo-terminal, so [ -t 1 ] is true as on a real one.
+    Path script = Path.of("/usr/bin/script");
+    assumeTrue(Files.isExecutable(script), "script(1) not installed");
+    String cmd = "bash numafit plan -f " + ExamplesIT.PARCEL + " --host-profile "
+        + ExamplesIT.TWO_SOCKET;
+    String coloured = onTerminal(cmd, null);
+    assertTrue(coloured.contains("\u001b[1mPlan for host profile"), coloured);
+    // COLUMNS=110: the longest line is wider than the 80 columns of the plain report.
+    int widest = coloured.lines().map(l -> l.replaceAll("\u001b\\[[0-9;]*m", ""))
+        .mapToInt(String::length).max().orElse(0);
+    assertTrue(widest > 80 && widest <= 110, "widest line " + widest);
+    String plain = onTerminal(cmd, "1");
+    // NO_COLOR (no-color.org): no escape codes even on a terminal.
+    assertFalse(plain.contains("\u001b"), plain);
+    // And through a pipe, the launcher passes no terminal: the jar's own plain output.
+    String[] piped = run(JarRun.PROJECT.resolve("numafit"), "plan", "-f", ExamplesIT.PARCEL,
+        "--host-profile", ExamplesIT.TWO_SOCKET);
+    assertEquals(JarRun.of("plan", "-f", ExamplesIT.PARCEL, "--host-profile",
+        ExamplesIT.TWO_SOCKET).out(), piped[1]);
+  }
+
+  private static String onTerminal(String command, String noColor) throws Exception {
+    ProcessBuilder pb = new ProcessBuilder("script", "-q", "-e", "-c", command, "/dev/null")
+        .directory(JarRun.PROJECT.toFile());
+    pb.environment().put("NUMAFIT_CDS", "0");
+    pb.environment().put("COLUMNS", "110");
+    pb.environment().remove("NO_COLOR");
+    if (noColor != null) {
+      pb.environment().put("NO_COLOR", noColor);
+    }
+    Path out = Files.createTempFile("launcher-tty", ".out");
+    pb.redirectOutput(out.toFile()).redirectErrorStream(true)
+        .redirectInput(ProcessBuilder.Redirect.from(Path.of("/dev/null").toFile()));
+    Process p = pb.start();
+    assertTrue(p.waitFor(120, TimeUnit.SECONDS), "launcher did not finish");
+    assertEquals(0, p.exitValue(), Files.readString(out, StandardCharsets.UTF_8));
+    String text = Files.readString(out, StandardCharsets.UTF_8).replace("\r\n", "\n");
+    Files.delete(out);
+    return text;
   }
 }

@@ -15,7 +15,9 @@ public enum CheckFormat {
   /** SARIF 2.1.0, for code-scanning views that annotate the changed lines. */
   SARIF("sarif"),
   /** JUnit XML, one test case per workload, for CI test reporters. */
-  JUNIT("junit");
+  JUNIT("junit"),
+  /** The Markdown comment's content as one self-contained HTML page. */
+  HTML("html");
 
   private final String label;
 
@@ -36,6 +38,7 @@ public enum CheckFormat {
       case MARKDOWN -> new CheckMarkdownWriter();
       case SARIF -> new CheckSarifWriter();
       case JUNIT -> new CheckJunitWriter();
+      case HTML -> new CheckHtmlWriter();
     };
   }
 

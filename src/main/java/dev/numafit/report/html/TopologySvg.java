@@ -229,7 +229,7 @@ final class TopologySvg {
 
   private static void channels(StringBuilder sb, String id, NumaNode node, Box b) {
     double top = b.y() + 100;
-    text(sb, b.x() + 8, top + 12, "label small", "Channels");
+    text(sb, b.x() + 8, top + 12, "label small", "DIMMs");
     if (!node.channelsConfirmed() || node.channels().isEmpty()) {
       text(sb, b.barX(), top + 12, "label small", "not listed (memory given directly)");
       return;
@@ -324,7 +324,8 @@ final class TopologySvg {
     sb.append(layout.spanning() ? ", each split over " + layout.groups().get(0).nodes().size()
         + " nodes. " : ". ");
     sb.append("Hypervisor keeps ").append(Units.bytes(p.hypervisorMemoryBytes()))
-        .append(" of memory and ").append(p.hypervisorCores()).append(" cores.");
+        .append(" of memory and ").append(p.hypervisorCores())
+        .append(p.hypervisorCores() == 1 ? " core." : " cores.");
     for (NumaNode node : p.nodes()) {
       long empty = node.channels().size() - node.populatedChannels();
       if (node.channelsConfirmed() && empty > 0) {
