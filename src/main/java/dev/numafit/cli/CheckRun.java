@@ -46,7 +46,7 @@ final class CheckRun {
     if (!profileErrors.isEmpty()) {
       throw new InputException(profileErrors);
     }
-    ManifestReader reader = new ManifestReader();
+    ManifestReader reader = new ManifestReader(console.maxDocumentChars());
     ManifestRead head = reader.readLocated(po.files(), console.in(), read);
     Optional<ManifestRead> base = Optional.empty();
     if (!s.baseline().isEmpty()) {

@@ -1,9 +1,12 @@
 package dev.numafit.cli;
 
+import dev.numafit.manifest.ManifestReader;
 import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ScopeType;
 import picocli.CommandLine.Spec;
 
 /** The root command: {@code --help}, {@code --version} and the subcommands. */
@@ -46,8 +49,43 @@ public final class NumafitCommand implements Callable<Integer> {
     this.console = console;
   }
 
+  @Option(
+      names = "--max-document-size",
+      scope = ScopeType.INHERIT,
+      paramLabel = "SIZE",
+      converter = DocumentSizeConverter.class,
+      description =
+          "Largest manifest file, standard input, YAML document or JSON value read, in"
+              + " characters (Ki, Mi suffixes allowed; default 32Mi). Raise it for very large"
+              + " inputs.")
+  int maxDocumentChars = ManifestReader.DEFAULT_MAX_DOCUMENT_CHARS;
+
   Console console() {
-    return console;
+    return console.withMaxDocumentChars(maxDocumentChars);
+  }
+
+  /** Reads {@code --max-document-size}: a whole number with an optional Ki or Mi suffix. */
+  static final class DocumentSizeConverter implements CommandLine.ITypeConverter<Integer> {
+    @Override
+    public Integer convert(String value) {
+      java.util.regex.Matcher m =
+          java.util.regex.Pattern.compile("([0-9]{1,10})(Ki|Mi)?").matcher(value.trim());
+      long n = -1;
+      if (m.matches()) {
+        n = Long.parseLong(m.group(1));
+        if ("Ki".equals(m.group(2))) {
+          n <<= 10;
+        } else if ("Mi".equals(m.group(2))) {
+          n <<= 20;
+        }
+      }
+      if (n <= 0 || n > Integer.MAX_VALUE - 8) {
+        throw new CommandLine.TypeConversionException(
+            "'" + value + "' is not a size (expected a whole number of characters from 1 to"
+                + " 2047Mi, e.g. 64Mi)");
+      }
+      return (int) n;
+    }
   }
 
   @Override

@@ -244,7 +244,7 @@ final class Pipeline {
 
   private static Demand readDemand(
       List<String> files, ReplicasOption replicas, boolean includeCustom, Console console) {
-    return new ManifestReader()
+    return new ManifestReader(console.maxDocumentChars())
         .read(files, console.in(), new ReadOptions(replicas.mode(), includeCustom));
   }
 

@@ -274,6 +274,10 @@ public final class SnapshotFile {
           throw error(field + "." + e.getKey() + " is " + e.getValue()
               + " (expected an integer: cpu in millicores, others in bytes or counts)");
         }
+        if (e.getValue().asLong() < 0 || !e.getValue().canConvertToLong()) {
+          throw error(field + "." + e.getKey() + " is " + e.getValue()
+              + " (expected an integer from 0 to 2^63-1)");
+        }
         m.put(intern(e.getKey()), e.getValue().asLong());
       }
       return intern(Resources.of(m));
@@ -378,7 +382,11 @@ public final class SnapshotFile {
         in.line = line(p);
         switch (key) {
           case "schemaVersion" -> {
-            if (!t.isNumeric() || p.getIntValue() != SCHEMA_VERSION) {
+            if (!t.isNumeric()) {
+              throw in.error("schemaVersion is " + JSON.writeValueAsString(JSON.readTree(p))
+                  + " (expected the integer " + SCHEMA_VERSION + ")");
+            }
+            if (p.getIntValue() != SCHEMA_VERSION) {
               throw in.error("schemaVersion " + p.getString() + " is not supported (expected "
                   + SCHEMA_VERSION + "; write the snapshot again with this numafit)");
             }
@@ -427,8 +435,21 @@ public final class SnapshotFile {
           default -> p.skipChildren();
         }
       }
+      if (p.currentToken() == JsonToken.END_OBJECT && p.nextToken() != null) {
+        // A snapshot is one object; anything after it means the file was damaged or joined.
+        in.line = line(p);
+        throw in.error("unexpected content after the snapshot object (expected the end of the"
+            + " file)");
+      }
     } catch (JacksonException ex) {
-      in.line = ex.getLocation() == null ? 0 : ex.getLocation().getLineNr();
+      // The location's line is -1 when unknown (e.g. bytes that are not text at all).
+      in.line = ex.getLocation() == null ? 1 : Math.max(1, ex.getLocation().getLineNr());
+      for (Throwable c = ex; c != null; c = c.getCause()) {
+        if (c instanceof java.nio.charset.CharacterCodingException) {
+          throw in.error("not UTF-8 text (expected a JSON snapshot written by numafit snapshot"
+              + " --out FILE)");
+        }
+      }
       throw in.error("not valid JSON: " + ex.getOriginalMessage());
     } catch (IllegalArgumentException | NullPointerException ex) {
       throw in.error("invalid record: " + ex.getMessage());

@@ -8,9 +8,12 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
 import org.snakeyaml.engine.v2.exceptions.MarkedYamlEngineException;
+import org.snakeyaml.engine.v2.api.LoadSettings;
 import tools.jackson.core.JacksonException;
 import tools.jackson.core.JsonParser;
 import tools.jackson.core.JsonToken;
+import tools.jackson.core.StreamReadConstraints;
+import tools.jackson.core.json.JsonFactory;
 import tools.jackson.core.TokenStreamLocation;
 import tools.jackson.databind.DeserializationFeature;
 import tools.jackson.databind.JsonNode;
@@ -18,6 +21,7 @@ import tools.jackson.databind.json.JsonMapper;
 import tools.jackson.databind.node.ArrayNode;
 import tools.jackson.databind.node.JsonNodeFactory;
 import tools.jackson.databind.node.ObjectNode;
+import tools.jackson.dataformat.yaml.YAMLFactory;
 import tools.jackson.dataformat.yaml.YAMLMapper;
 import tools.jackson.dataformat.yaml.YAMLParser;
 
@@ -30,9 +34,80 @@ import tools.jackson.dataformat.yaml.YAMLParser;
 final class DocumentReader {
   private static final JsonNodeFactory NODES = JsonNodeFactory.instance;
 
-  private final YAMLMapper yaml =
-      YAMLMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
-  private JsonMapper json; // built on first use: most inputs are YAML only
+  /**
+   * Deepest nesting of mappings and lists in one document. A Kubernetes manifest needs a few
+   * dozen levels; the cap keeps a hostile document from exhausting the stack.
+   */
+  static final int MAX_DEPTH = 500;
+
+  /**
+   * Most values one document may copy through YAML aliases ({@code *name}). Aliases that repeat
+   * aliases grow exponentially (the "billion laughs" document); real manifests copy a handful.
+   */
+  static final int MAX_ALIAS_VALUES = 100_000;
+
+  private final int maxDocumentChars;
+  private final YAMLMapper yaml;
+  private final StreamReadConstraints limits;
+  private JsonMapper json;
+
+  /** A reader with the default document size limit ({@link ManifestReader#DEFAULT_MAX_DOCUMENT_CHARS}). */
+  DocumentReader() {
+    this(ManifestReader.DEFAULT_MAX_DOCUMENT_CHARS);
+  }
+
+  /** A reader refusing YAML documents and JSON values longer than {@code maxDocumentChars}. */
+  DocumentReader(int maxDocumentChars) {
+    this.maxDocumentChars = maxDocumentChars;
+    StreamReadConstraints limits =
+        StreamReadConstraints.builder()
+            .maxNestingDepth(MAX_DEPTH)
+            .maxDocumentLength(maxDocumentChars)
+            .build();
+    this.yaml =
+        YAMLMapper.builder(
+                YAMLFactory.builder()
+                    .loadSettings(
+                        LoadSettings.builder()
+                            .setCodePointLimit(maxDocumentChars)
+                            // Duplicates are reported by this reader, as a warning naming the key.
+                            .setAllowDuplicateKeys(true)
+                            .setMaxAliasesForCollections(MAX_ALIAS_VALUES)
+                            .build())
+                    .streamReadConstraints(limits)
+                    .build())
+            .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .build();
+    this.limits = limits;
+  }
+
+  private JsonMapper json() {
+    if (json == null) {
+      // Built on first use: most inputs are YAML only.
+      json =
+          JsonMapper.builder(JsonFactory.builder().streamReadConstraints(limits).build())
+              .disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+              .build();
+    }
+    return json;
+  }
+
+  /** Thrown while building a tree whose aliases copy more than {@link #MAX_ALIAS_VALUES}. */
+  private static final class AliasLimit extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+    final int line;
+
+    AliasLimit(int line) {
+      super(null, null, false, false);
+      this.line = line;
+    }
+  }
+
+  /** Values copied through aliases in the document being built, and each anchor's size. */
+  private static final class AliasBudget {
+    long copied;
+    final Map<String, Long> sizes = new HashMap<>();
+  }
 
   /** A key given twice in one mapping, where the second one is. */
   private record DuplicateKey(int line, String name) {}
@@ -54,12 +129,13 @@ final class DocumentReader {
       Consumer<LocatedDocument> sink,
       List<Diagnostic> diagnostics) {
     Outcome outcome = new Outcome();
-    String[] lines = null; // split only when an error needs the next document separator
     int offset = 0; // lines skipped before the current parser's input
     String rest = text;
     while (rest != null) {
       String next = null;
+      JsonParser parser = null;
       try (JsonParser p = asJson ? json().createParser(rest) : yaml.createParser(rest)) {
+        parser = p;
         JsonToken t;
         while ((t = p.nextToken()) != null) {
           int start = offset + line(p.currentTokenLocation());
@@ -69,7 +145,8 @@ final class DocumentReader {
           }
           Map<String, Integer> positions = new HashMap<>();
           List<DuplicateKey> duplicates = new ArrayList<>();
-          JsonNode root = build(p, t, "", positions, offset, new HashMap<>(), duplicates);
+          JsonNode root =
+              build(p, t, "", positions, offset, new HashMap<>(), duplicates, new AliasBudget());
           for (DuplicateKey d : duplicates) {
             diagnostics.add(
                 Diagnostic.warning(
@@ -78,36 +155,43 @@ final class DocumentReader {
           }
           sink.accept(new LocatedDocument(file, root, positions, start));
         }
-      } catch (JacksonException e) {
-        int errorLine = offset + errorLine(e);
-        diagnostics.add(
-            Diagnostic.error(
-                new SourceRef(file, Math.max(errorLine, 0)),
-                (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(e, offset)));
-        if (!asJson) {
-          if (lines == null) {
-            lines = text.split("\n", -1);
+      } catch (JacksonException | AliasLimit e) {
+        int errorLine;
+        String message;
+        if (e instanceof AliasLimit a) {
+          errorLine = a.line;
+          message =
+              "YAML aliases in this document copy more than "
+                  + MAX_ALIAS_VALUES
+                  + " values (an alias bomb?); numafit reads documents whose aliases repeat"
+                  + " a few small blocks";
+        } else {
+          JacksonException je = (JacksonException) e;
+          errorLine = offset + errorLine(je);
+          if (errorLine <= offset && parser != null) {
+            // Limit errors carry no location of their own: use where the parser stopped.
+            errorLine = offset + line(parser.currentLocation());
           }
-          // Resume at the next document separator after the error, if any.
-          for (int i = Math.max(errorLine - 1, offset + 1); i < lines.length; i++) {
-            if (lines[i].startsWith("---")) {
-              next = String.join("\n", java.util.Arrays.copyOfRange(lines, i, lines.length));
-              offset = i;
-              break;
-            }
+          message = limitMessage(je, asJson);
+          if (message == null) {
+            message = (asJson ? "malformed JSON: " : "malformed YAML: ") + problem(je, offset);
+          }
+        }
+        diagnostics.add(Diagnostic.error(new SourceRef(file, Math.max(errorLine, 0)), message));
+        if (!asJson) {
+          // Resume at the next document separator after the error, if any. Scan the text
+          // rather than splitting it into lines: a huge file must not be copied again.
+          int from = lineStart(text, Math.max(errorLine - 1, offset + 1) + 1);
+          int sep = from < 0 ? -1 : separatorAt(text, from);
+          if (sep >= 0) {
+            next = text.substring(sep);
+            offset = lineOf(text, sep);
           }
         }
       }
       rest = next;
     }
     return outcome;
-  }
-
-  private JsonMapper json() {
-    if (json == null) {
-      json = JsonMapper.builder().disable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS).build();
-    }
-    return json;
   }
 
   private static int line(TokenStreamLocation loc) {
@@ -121,21 +205,100 @@ final class DocumentReader {
       Map<String, Integer> positions,
       int offset,
       Map<String, JsonNode> anchors,
-      List<DuplicateKey> duplicates) {
+      List<DuplicateKey> duplicates,
+      AliasBudget budget) {
     positions.put(pointer, offset + line(p.currentTokenLocation()));
     if (p instanceof YAMLParser y && t == JsonToken.VALUE_STRING && y.isCurrentAlias()) {
       // An alias (*name) repeats the node anchored as &name earlier in the document.
       JsonNode anchored = anchors.get(p.getString());
       if (anchored != null) {
+        budget.copied += budget.sizes.getOrDefault(p.getString(), 1L);
+        if (budget.copied > MAX_ALIAS_VALUES) {
+          throw new AliasLimit(offset + line(p.currentTokenLocation()));
+        }
         return anchored.deepCopy();
       }
     }
     Object anchor = p.getObjectId();
-    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors, duplicates);
+    JsonNode node = buildValue(p, t, pointer, positions, offset, anchors, duplicates, budget);
     if (anchor != null) {
       anchors.put(anchor.toString(), node);
+      budget.sizes.put(anchor.toString(), size(node));
     }
     return node;
+  }
+
+  /** Values in a tree, counting containers and leaves; bounded by the alias budget. */
+  private static long size(JsonNode node) {
+    long n = 1;
+    for (JsonNode child : node.values()) {
+      n += size(child);
+    }
+    return n;
+  }
+
+  /** A message for a deliberate parser limit, or null when {@code e} is another error. */
+  private String limitMessage(JacksonException e, boolean asJson) {
+    String m = String.valueOf(e.getOriginalMessage());
+    for (Throwable c = e.getCause(); c != null; c = c.getCause()) {
+      m = m + " " + c.getMessage();
+    }
+    if (m.contains("nesting depth")) {
+      return "nested deeper than "
+          + MAX_DEPTH
+          + " levels (numafit's limit for one document; a Kubernetes manifest needs a few"
+          + " dozen)";
+    }
+    if (m.contains("exceeds the limit") || m.toLowerCase(java.util.Locale.ROOT).contains("document length")) {
+      return (asJson ? "a JSON value" : "a YAML document")
+          + " longer than "
+          + maxDocumentChars
+          + " characters (numafit's limit); raise it with --max-document-size if the input"
+          + " is meant to be this large";
+    }
+    if (m.contains("Number of aliases")) {
+      return "more than "
+          + MAX_ALIAS_VALUES
+          + " YAML aliases in this document (an alias bomb?)";
+    }
+    return null;
+  }
+
+  /** The character offset where 1-based line {@code line} starts, or -1 past the end. */
+  private static int lineStart(String text, int line) {
+    int at = 0;
+    for (int i = 1; i < line; i++) {
+      at = text.indexOf('\n', at);
+      if (at < 0) {
+        return -1;
+      }
+      at++;
+    }
+    return at;
+  }
+
+  /** The start of the first line at or after {@code from} that begins with {@code ---}. */
+  private static int separatorAt(String text, int from) {
+    int at = from;
+    while (at >= 0 && at < text.length()) {
+      if (text.startsWith("---", at)) {
+        return at;
+      }
+      at = text.indexOf('\n', at);
+      if (at >= 0) {
+        at++;
+      }
+    }
+    return -1;
+  }
+
+  /** How many lines come before character offset {@code at} (so a 0-based line number). */
+  private static int lineOf(String text, int at) {
+    int n = 0;
+    for (int i = text.indexOf('\n'); i >= 0 && i < at; i = text.indexOf('\n', i + 1)) {
+      n++;
+    }
+    return n;
   }
 
   private JsonNode buildValue(
@@ -145,7 +308,8 @@ final class DocumentReader {
       Map<String, Integer> positions,
       int offset,
       Map<String, JsonNode> anchors,
-      List<DuplicateKey> duplicates) {
+      List<DuplicateKey> duplicates,
+      AliasBudget budget) {
     switch (t) {
       case START_OBJECT:
         {
@@ -159,7 +323,7 @@ final class DocumentReader {
             if (o.has(name)) {
               duplicates.add(new DuplicateKey(keyLine, name));
             }
-            o.set(name, build(p, v, child, positions, offset, anchors, duplicates));
+            o.set(name, build(p, v, child, positions, offset, anchors, duplicates, budget));
             Integer valueLine = positions.get(child);
             if (valueLine != null && valueLine != keyLine) {
               // A block mapping or list starts on the line after its key; keep the key's line
@@ -175,7 +339,7 @@ final class DocumentReader {
           JsonToken n;
           int i = 0;
           while ((n = p.nextToken()) != JsonToken.END_ARRAY) {
-            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors, duplicates));
+            a.add(build(p, n, pointer + "/" + i, positions, offset, anchors, duplicates, budget));
             i++;
           }
           return a;
@@ -239,6 +403,10 @@ final class DocumentReader {
     }
     String msg = e.getOriginalMessage();
     int nl = msg == null ? -1 : msg.indexOf('\n');
-    return nl < 0 ? String.valueOf(msg) : msg.substring(0, nl);
+    String first = nl < 0 ? String.valueOf(msg) : msg.substring(0, nl);
+    // Jackson appends where the open object began, as an internal source description; the line
+    // of the error is already in front of the message.
+    int marker = first.indexOf(" (start marker at");
+    return marker < 0 ? first : first.substring(0, marker);
   }
 }

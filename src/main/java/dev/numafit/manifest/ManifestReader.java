@@ -77,7 +77,42 @@ public final class ManifestReader {
   private static final class K8s {
     static final KubernetesSerialization INSTANCE = new KubernetesSerialization();
   }
-  private final DocumentReader documents = new DocumentReader();
+  private final DocumentReader documents;
+  private final int maxChars;
+
+  /**
+   * Largest input read by default, in characters, for one file (or standard input) and for one
+   * YAML document or JSON value in it (32 Mi): above the manifests people render, low enough that
+   * a runaway input is refused before it is read, in bounded memory.
+   */
+  public static final int DEFAULT_MAX_DOCUMENT_CHARS = 32 << 20;
+
+  /** A reader with the default limits. */
+  public ManifestReader() {
+    this(DEFAULT_MAX_DOCUMENT_CHARS);
+  }
+
+  /**
+   * A reader that accepts YAML documents and JSON values up to {@code maxDocumentChars}
+   * characters (nesting depth and YAML aliases keep their fixed limits).
+   */
+  public ManifestReader(int maxDocumentChars) {
+    if (maxDocumentChars <= 0) {
+      throw new IllegalArgumentException("maxDocumentChars must be positive");
+    }
+    this.documents = new DocumentReader(maxDocumentChars);
+    this.maxChars = maxDocumentChars;
+  }
+
+  private String tooLarge(String what, long size) {
+    return what
+        + " "
+        + size
+        + " bytes, more than numafit reads from one input ("
+        + maxChars
+        + " characters); raise the limit with --max-document-size if the input is meant to be"
+        + " this large";
+  }
 
   /**
    * Reads every path in order.
@@ -220,7 +255,14 @@ public final class ManifestReader {
     void readStdin(InputStream in) {
       String text;
       try {
-        text = new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        byte[] bytes = in.readNBytes(maxChars + 1);
+        if (bytes.length > maxChars) {
+          diags.add(
+              Diagnostic.error(
+                  new SourceRef(STDIN, 1), tooLarge("standard input is over", maxChars)));
+          return;
+        }
+        text = new String(bytes, StandardCharsets.UTF_8);
       } catch (IOException e) {
         diags.add(
             Diagnostic.error(
@@ -285,14 +327,22 @@ public final class ManifestReader {
 
     void readFile(Path p, String shown) {
       String text;
+      byte[] bytes = null;
       try {
-        byte[] bytes = Files.readAllBytes(p);
-        text =
-            StandardCharsets.UTF_8.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+        long size = Files.size(p);
+        if (size > maxChars) {
+          // Refused before reading: a runaway file must not fill the heap.
+          diags.add(Diagnostic.error(new SourceRef(shown, 1), tooLarge("this file is", size)));
+          return;
+        }
+        bytes = Files.readAllBytes(p);
+        text = decode(bytes);
       } catch (CharacterCodingException e) {
         diags.add(
             Diagnostic.error(
-                new SourceRef(shown, 0), "not UTF-8 text (expected a YAML or JSON manifest)"));
+                new SourceRef(shown, firstBadLine(bytes)),
+                "not UTF-8 text (expected a YAML or JSON manifest in UTF-8, or UTF-16 with a"
+                    + " byte order mark)"));
         return;
       } catch (IOException e) {
         diags.add(Diagnostic.error(new SourceRef(shown, 0), "cannot read: " + e.getMessage()));
@@ -300,6 +350,33 @@ public final class ManifestReader {
       }
       boolean json = shown.toLowerCase(Locale.ROOT).endsWith(".json");
       readText(shown, text, json);
+    }
+
+    /**
+     * UTF-8 text, or UTF-16 when the bytes start with its byte order mark (YAML 1.2 allows both;
+     * some editors on one desktop system save UTF-16).
+     */
+    private String decode(byte[] bytes) throws CharacterCodingException {
+      boolean utf16 =
+          bytes.length >= 2
+              && ((bytes[0] == (byte) 0xFE && bytes[1] == (byte) 0xFF)
+                  || (bytes[0] == (byte) 0xFF && bytes[1] == (byte) 0xFE));
+      java.nio.charset.Charset cs = utf16 ? StandardCharsets.UTF_16 : StandardCharsets.UTF_8;
+      return cs.newDecoder().decode(java.nio.ByteBuffer.wrap(bytes)).toString();
+    }
+
+    /** The 1-based line of the first byte that is not UTF-8. */
+    private int firstBadLine(byte[] bytes) {
+      java.nio.ByteBuffer in = java.nio.ByteBuffer.wrap(bytes);
+      java.nio.CharBuffer out = java.nio.CharBuffer.allocate(bytes.length + 1);
+      StandardCharsets.UTF_8.newDecoder().decode(in, out, true);
+      int line = 1;
+      for (int i = 0; i < in.position(); i++) {
+        if (bytes[i] == '\n') {
+          line++;
+        }
+      }
+      return line;
     }
 
     void readText(String file, String text, boolean json) {
@@ -394,13 +471,25 @@ public final class ManifestReader {
       }
       String name = scalar(meta.get("name"));
       boolean named = name != null && !name.isBlank();
+      boolean generated = false;
       if (!named) {
         String generate = scalar(meta.get("generateName"));
-        name = generate != null && !generate.isBlank() ? generate + "*" : "(unnamed)";
+        generated = generate != null && !generate.isBlank();
+        name = generated ? generate + "*" : "(unnamed)";
       }
       WorkloadId id = new WorkloadId(namespace, kind, name);
       int kindLine = doc.lines().getOrDefault(ptr + "/kind", doc.line(ptr));
       SourceRef source = new SourceRef(doc.file(), kindLine);
+      if (!named && !generated) {
+        // The API server rejects an object without a name; size it all the same, but say so.
+        diags.add(
+            Diagnostic.warning(
+                source,
+                id
+                    + ": no metadata.name (expected metadata.name or metadata.generateName);"
+                    + " read as "
+                    + name));
+      }
       String key = named ? id.toString() : id + "@" + source + "#" + (unnamed++);
       ObjectContext ctx = new ObjectContext(doc, id.toString());
 
