@@ -11,6 +11,7 @@ import dev.numafit.manifest.ManifestReader;
 import dev.numafit.manifest.ReadOptions;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.pack.VectorPacker;
 import dev.numafit.plan.PlanInput;
 import dev.numafit.plan.Planner;
 import dev.numafit.profile.HostProfileReader;
@@ -79,7 +80,8 @@ final class Pipeline {
         new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
     Sized sized = size(o, profiles);
     warnings.addAll(sized.warnings());
-    Planner planner = new Planner();
+    Planner planner =
+        new Planner(new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort()));
     List<Plan> plans = new ArrayList<>();
     for (PlanInput in : sized.inputs()) {
       plans.add(planner.plan(demand, in));

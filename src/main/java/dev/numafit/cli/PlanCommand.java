@@ -118,6 +118,14 @@ public final class PlanCommand implements Callable<Integer> {
   int hostFailures;
 
   @Option(
+      names = "--effort",
+      paramLabel = "N",
+      description =
+          "Packing effort: N times the default step budget; 0 runs only the first"
+              + " first-fit-decreasing pass (default: 1). Same input and N, same plan.")
+  int effort = 1;
+
+  @Option(
       names = "--zones",
       paramLabel = "Z",
       description = "Spread hosts evenly over Z zones; workers carry the zone label (default: 1).")

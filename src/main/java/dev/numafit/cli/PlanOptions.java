@@ -29,6 +29,7 @@ import java.util.SortedMap;
  * @param kubeletConfigDir where to write KubeletConfiguration files, when asked
  * @param out the report file, when not standard output
  * @param placementOptions --zones, --zone-failures and --spread-replicas-across
+ * @param effort --effort: the packer's step budget in multiples of the default, 0..1000
  */
 public record PlanOptions(
     List<String> files,
@@ -48,7 +49,8 @@ public record PlanOptions(
     Optional<Path> kubeletConfigDir,
     ReportFormat format,
     Optional<Path> out,
-    PlacementOptions placementOptions) {
+    PlacementOptions placementOptions,
+    int effort) {
   public PlanOptions {
     Objects.requireNonNull(placementOptions, "placementOptions");
     files = List.copyOf(files);
@@ -157,6 +159,10 @@ public record PlanOptions(
       problems.add("--host-failures needs --host-profile (without one, plan counts workers,"
           + " not hosts)");
     }
+    if (c.effort < 0 || c.effort > 1000) {
+      problems.add("--effort must be from 0 to 1000 (multiples of the default step budget), got "
+          + c.effort);
+    }
     if (c.zones < 1) {
       problems.add("--zones must be 1 or more, got " + c.zones);
     }
@@ -218,7 +224,8 @@ public record PlanOptions(
         c.common.output,
         Optional.ofNullable(c.common.out),
         new PlacementOptions(
-            c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey));
+            c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey),
+        c.effort);
   }
 
   private static Optional<Resources> parse(

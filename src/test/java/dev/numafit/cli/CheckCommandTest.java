@@ -65,9 +65,9 @@ class CheckCommandTest {
 
   @Test
   void check_unknownFormat_exitsTwo() {
-    CliRun r = CliRun.of("check", "-f", PARCEL, "--worker", "cpu=16,memory=64Gi", "-o", "html");
+    CliRun r = CliRun.of("check", "-f", PARCEL, "--worker", "cpu=16,memory=64Gi", "-o", "yaml");
     assertEquals(2, r.code());
-    assertTrue(r.err().contains("unknown output format \"html\""), r.err());
+    assertTrue(r.err().contains("unknown output format \"yaml\""), r.err());
   }
 
   @Test

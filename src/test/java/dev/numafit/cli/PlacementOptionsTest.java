@@ -51,4 +51,24 @@ class PlacementOptionsTest {
     assertEquals(0, r.code(), r.err());
     assertTrue(r.out().contains("without failures)"), r.out());
   }
+
+  @Test
+  void plan_effortOutOfRange_usageError() {
+    CliRun r = CliRun.of("plan", "-f", PARCEL, "--host-profile", PROFILE, "--effort", "-1");
+    assertEquals(2, r.code());
+    assertTrue(r.err().contains("--effort must be from 0 to 1000"), r.err());
+  }
+
+  @Test
+  void plan_effortZeroAndHigh_sameWorkersOnSmallExample() {
+    // The parcel example packs to its lower bound of 2 workers (golden plan-parcel-two-socket.txt:
+    // "Workers needed 2 (no packing can use fewer than 2)"), so neither effort can change it.
+    for (String effort : new String[] {"0", "5"}) {
+      CliRun r =
+          CliRun.of("plan", "-f", PARCEL, "--host-profile", PROFILE, "--effort", effort);
+      assertEquals(0, r.code(), r.err());
+      assertTrue(r.out().contains("Workers needed    2 (no packing can use fewer than 2)"),
+          r.out());
+    }
+  }
 }
