@@ -48,6 +48,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.SortedMap;
 import java.util.TreeMap;
+import java.util.function.Function;
 import java.util.stream.Stream;
 import tools.jackson.core.JacksonException;
 import tools.jackson.databind.DatabindException;
@@ -611,88 +612,28 @@ public final class ManifestReader {
               lines(ctx.doc, spec, null));
         }
         case DEPLOYMENT -> {
-          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
-          if (plain != null) {
-            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
-            return true;
-          }
-          Deployment o = convert(node, Deployment.class, ptr, ctx);
-          if (o == null) {
-            return false;
-          }
-          var s = o.getSpec();
-          scalable(
-              key,
-              id,
-              source,
-              s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(),
-              template,
-              spec,
-              ctx);
+          return scalableKind(
+              k, node, ptr, id, source, key, ctx, template, spec, Deployment.class,
+              o -> o.getSpec() == null ? null : o.getSpec().getReplicas(),
+              o -> o.getSpec() == null ? null : o.getSpec().getTemplate());
         }
         case REPLICA_SET -> {
-          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
-          if (plain != null) {
-            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
-            return true;
-          }
-          ReplicaSet o = convert(node, ReplicaSet.class, ptr, ctx);
-          if (o == null) {
-            return false;
-          }
-          var s = o.getSpec();
-          scalable(
-              key,
-              id,
-              source,
-              s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(),
-              template,
-              spec,
-              ctx);
+          return scalableKind(
+              k, node, ptr, id, source, key, ctx, template, spec, ReplicaSet.class,
+              o -> o.getSpec() == null ? null : o.getSpec().getReplicas(),
+              o -> o.getSpec() == null ? null : o.getSpec().getTemplate());
         }
         case STATEFUL_SET -> {
-          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
-          if (plain != null) {
-            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
-            return true;
-          }
-          StatefulSet o = convert(node, StatefulSet.class, ptr, ctx);
-          if (o == null) {
-            return false;
-          }
-          var s = o.getSpec();
-          scalable(
-              key,
-              id,
-              source,
-              s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(),
-              template,
-              spec,
-              ctx);
+          return scalableKind(
+              k, node, ptr, id, source, key, ctx, template, spec, StatefulSet.class,
+              o -> o.getSpec() == null ? null : o.getSpec().getReplicas(),
+              o -> o.getSpec() == null ? null : o.getSpec().getTemplate());
         }
         case REPLICATION_CONTROLLER -> {
-          PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
-          if (plain != null) {
-            scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
-            return true;
-          }
-          ReplicationController o = convert(node, ReplicationController.class, ptr, ctx);
-          if (o == null) {
-            return false;
-          }
-          var s = o.getSpec();
-          scalable(
-              key,
-              id,
-              source,
-              s == null ? null : s.getReplicas(),
-              s == null ? null : s.getTemplate(),
-              template,
-              spec,
-              ctx);
+          return scalableKind(
+              k, node, ptr, id, source, key, ctx, template, spec, ReplicationController.class,
+              o -> o.getSpec() == null ? null : o.getSpec().getReplicas(),
+              o -> o.getSpec() == null ? null : o.getSpec().getTemplate());
         }
         case DAEMON_SET -> {
           PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
@@ -824,6 +765,36 @@ public final class ManifestReader {
         }
         default -> throw new IllegalStateException(k.toString());
       }
+      return true;
+    }
+
+    /**
+     * Reads a workload kind that carries {@code spec.replicas} and {@code spec.template}: plain
+     * objects through the quick path, the rest through fabric8's full conversion.
+     */
+    <T> boolean scalableKind(
+        KnownKind k,
+        JsonNode node,
+        String ptr,
+        WorkloadId id,
+        SourceRef source,
+        String key,
+        ObjectContext ctx,
+        String template,
+        String spec,
+        Class<T> type,
+        Function<T, Integer> replicas,
+        Function<T, PodTemplateSpec> podTemplate) {
+      PlainWorkloads.Plain plain = PlainWorkloads.of(node, k);
+      if (plain != null) {
+        scalable(key, id, source, plain.replicas(), plain.template(), template, spec, ctx);
+        return true;
+      }
+      T o = convert(node, type, ptr, ctx);
+      if (o == null) {
+        return false;
+      }
+      scalable(key, id, source, replicas.apply(o), podTemplate.apply(o), template, spec, ctx);
       return true;
     }
 
