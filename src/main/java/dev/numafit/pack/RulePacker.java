@@ -29,10 +29,15 @@ import java.util.Set;
  * pods per worker or host, which always satisfies the constraint. Deterministic: no randomness,
  * effort in steps.
  *
+ * <p>Speed: the workers where a pod fits are found through a tree of the largest free room per
+ * dimension over ranges of workers, not by scanning every worker, and the pod counts of the group
+ * being placed live in plain arrays; the choices are the same as a worker-by-worker scan makes.
+ *
  * <p>{@link #hostsToSurvive} sizes for losing hosts or a zone: pods on lost hosts must be
  * rescheduled, under the same rules, into the room left on surviving workers or onto new workers
  * in free slots of surviving hosts; running pods are not moved (the scheduler does not move
- * them).
+ * them). Lost pods are re-placed largest first, each by best fit: a heuristic, so the host count
+ * it finds can be higher than the fewest that would do, never lower.
  */
 public final class RulePacker {
   /** A topology domain a rule is about. */
