@@ -259,56 +259,150 @@ public final class RulePacker {
     Survival survival = null;
     Set<String> survived = new HashSet<>();
     boolean exhaustive = true;
-    for (int hosts = Math.max(1, layout.hosts()); hosts <= layout.hosts() + maxExtra; hosts++) {
+    boolean visited = false;
+    int last = layout.hosts() + maxExtra;
+    int hosts = Math.max(1, layout.hosts());
+    while (hosts <= last) {
       if (hosts - hostFailures < 1 || (zoneFailure && topo.zones() < 2)) {
+        hosts++;
         continue;
       }
+      visited = true;
       if (survival == null) {
         survival = new Survival(groups, capacity, topo, layout);
       }
-      List<FailureSet> sets = new ArrayList<>();
-      if (hostFailures > 0) {
-        if (choose(hosts, hostFailures) <= MAX_FAILURE_SETS) {
-          List<int[]> subsets = new ArrayList<>();
-          subsets(hosts, hostFailures, new int[hostFailures], 0, 0, subsets);
-          for (int[] s : subsets) {
-            sets.add(new FailureSet(Arrays.toString(s), s));
-          }
-        } else {
-          exhaustive = false;
-          int[] s = heaviest(groups, capacity, layout, hosts, hostFailures);
-          sets.add(new FailureSet(Arrays.toString(s), s));
-        }
+      if (hostFailures > 0 && choose(hosts, hostFailures) > MAX_FAILURE_SETS) {
+        exhaustive = false;
       }
-      if (zoneFailure) {
-        for (int z = 0; z < topo.zones(); z++) {
-          List<Integer> inZone = new ArrayList<>();
-          for (int h = 0; h < hosts; h++) {
-            if (topo.zoneOf(h) == z) {
-              inZone.add(h);
-            }
-          }
-          // Keyed by zone: the hosts added at a larger count are empty and unusable either way.
-          sets.add(
-              new FailureSet("zone " + z, inZone.stream().mapToInt(Integer::intValue).toArray()));
-        }
-      }
-      boolean all = true;
-      for (FailureSet set : sets) {
+      FailureSet failed = null;
+      for (FailureSet set : failureSets(groups, capacity, topo, layout, hosts, hostFailures,
+          zoneFailure)) {
         if (survived.contains(set.key())) {
           continue;
         }
         if (!survival.survives(hosts, set.hosts())) {
-          all = false;
+          failed = set;
           break;
         }
         survived.add(set.key());
       }
-      if (all) {
+      if (failed == null) {
         return new FailureResult(hosts, true, exhaustive);
       }
+      hosts =
+          nextSurviving(
+              survival, failed.key(), hosts, last, groups, capacity, topo, layout, hostFailures,
+              zoneFailure);
     }
-    return new FailureResult(layout.hosts() + maxExtra, false, exhaustive);
+    if (visited && hostFailures > 0 && choose(last, hostFailures) > MAX_FAILURE_SETS) {
+      exhaustive = false; // the counts jumped over would have said so
+    }
+    return new FailureResult(last, false, exhaustive);
+  }
+
+  /**
+   * The failure sets checked with {@code hosts} hosts: every set of K hosts (or, when there are
+   * more than {@link #MAX_FAILURE_SETS}, the K hosts carrying the most demand), then each zone.
+   */
+  private static List<FailureSet> failureSets(
+      List<Group> groups,
+      long[] capacity,
+      Topology topo,
+      Result layout,
+      int hosts,
+      int hostFailures,
+      boolean zoneFailure) {
+    List<FailureSet> sets = new ArrayList<>();
+    if (hostFailures > 0) {
+      if (choose(hosts, hostFailures) <= MAX_FAILURE_SETS) {
+        List<int[]> subsets = new ArrayList<>();
+        subsets(hosts, hostFailures, new int[hostFailures], 0, 0, subsets);
+        for (int[] s : subsets) {
+          sets.add(new FailureSet(Arrays.toString(s), s));
+        }
+      } else {
+        int[] s = heaviest(groups, capacity, layout, hosts, hostFailures);
+        sets.add(new FailureSet(Arrays.toString(s), s));
+      }
+    }
+    if (zoneFailure) {
+      for (int z = 0; z < topo.zones(); z++) {
+        List<Integer> inZone = new ArrayList<>();
+        for (int h = 0; h < hosts; h++) {
+          if (topo.zoneOf(h) == z) {
+            inZone.add(h);
+          }
+        }
+        // Keyed by zone: the hosts added at a larger count are empty and unusable either way.
+        sets.add(
+            new FailureSet("zone " + z, inZone.stream().mapToInt(Integer::intValue).toArray()));
+      }
+    }
+    return sets;
+  }
+
+  /**
+   * After the set {@code key} failed with {@code failedAt} hosts: the next count worth checking
+   * every set at. Survival of one set only improves with more hosts, so the smallest count at
+   * which this set survives is found by doubling the step and then halving the interval (a lost
+   * zone may need hundreds of extra hosts; one count after another would re-place its pods at
+   * each). Every count in between fails with this set, so none of them can be the answer. When
+   * the set is not among those checked at some count probed (the sets of K hosts give way to the
+   * heaviest ones), the search stops and the count after the last failing one is returned for a
+   * plain check.
+   */
+  private static int nextSurviving(
+      Survival survival,
+      String key,
+      int failedAt,
+      int last,
+      List<Group> groups,
+      long[] capacity,
+      Topology topo,
+      Result layout,
+      int hostFailures,
+      boolean zoneFailure) {
+    int lo = failedAt;
+    int hi = -1;
+    for (int step = 1; hi < 0; step *= 2) {
+      if (lo >= last) {
+        return last + 1;
+      }
+      int probe = (int) Math.min((long) lo + step, last);
+      FailureSet s = find(failureSets(groups, capacity, topo, layout, probe, hostFailures,
+          zoneFailure), key);
+      if (s == null) {
+        return lo + 1;
+      }
+      if (survival.survives(probe, s.hosts())) {
+        hi = probe;
+      } else {
+        lo = probe;
+      }
+    }
+    while (hi - lo > 1) {
+      int mid = (lo + hi) >>> 1;
+      FailureSet s = find(failureSets(groups, capacity, topo, layout, mid, hostFailures,
+          zoneFailure), key);
+      if (s == null) {
+        return lo + 1;
+      }
+      if (survival.survives(mid, s.hosts())) {
+        hi = mid;
+      } else {
+        lo = mid;
+      }
+    }
+    return hi;
+  }
+
+  private static FailureSet find(List<FailureSet> sets, String key) {
+    for (FailureSet s : sets) {
+      if (s.key().equals(key)) {
+        return s;
+      }
+    }
+    return null;
   }
 
   /** Hosts lost together; {@code key} names the set across host counts. */
