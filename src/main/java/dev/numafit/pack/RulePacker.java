@@ -1279,7 +1279,6 @@ public final class RulePacker {
     final int[][] groupsOfBin;
     final int[] rank;
     final int[] dominant;
-    final int baseBins;
 
     Survival(List<Group> groups, long[] capacity, Topology topo, Result layout) {
       this.topo = topo;
@@ -1290,7 +1289,6 @@ public final class RulePacker {
         l.openWorker(layout.hostOfBin[b]);
         perHost[layout.hostOfBin[b]]++;
       }
-      baseBins = bins;
       binsOfHost = new int[perHost.length][];
       for (int h = 0; h < perHost.length; h++) {
         binsOfHost[h] = new int[perHost[h]];
