@@ -66,11 +66,11 @@ public final class ReviewCommand implements Callable<Integer> {
 
   @Mixin ClusterOptions cluster = new ClusterOptions();
 
+  // Required, but checked in call(): picocli's own check would run before numafit.yaml is read.
   @Option(
       names = "--pool",
-      required = true,
       paramLabel = "KEY=VALUE",
-      description = "The pool: nodes with this label.")
+      description = "The pool: nodes with this label (required; may come from numafit.yaml).")
   String pool;
 
   @Option(
@@ -133,10 +133,20 @@ public final class ReviewCommand implements Callable<Integer> {
   @Option(names = "--verbose", description = "List every request made (never a credential).")
   boolean verbose;
 
+  @Option(
+      names = "--config",
+      paramLabel = "FILE",
+      description = "Read options from FILE (default: numafit.yaml in the current folder).")
+  Path config;
+
   @Override
   public Integer call() throws InputException {
     Console console = root.console();
     List<String> problems = new ArrayList<>();
+    if (pool == null) {
+      throw new UsageException(List.of("missing --pool KEY=VALUE: the label of the pool's nodes,"
+          + " e.g. --pool pool=general"));
+    }
     String[] kv = pool.split("=", 2);
     if (kv.length != 2 || kv[0].isBlank() || kv[1].isBlank()) {
       problems.add("--pool " + pool + ": expected KEY=VALUE, e.g. --pool pool=general");
