@@ -29,7 +29,7 @@ final class ConfigFile {
   static final String DEFAULT_NAME = "numafit.yaml";
 
   private static final Set<String> PATH_OPTIONS =
-      Set.of("filename", "host-profile", "kubelet-config", "out", "baseline");
+      Set.of("filename", "host-profile", "kubelet-config", "out", "baseline", "pools");
   private static final Set<String> NOT_ALLOWED = Set.of("config", "help", "version");
 
   private ConfigFile() {}

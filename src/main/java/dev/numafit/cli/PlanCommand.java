@@ -56,6 +56,15 @@ public final class PlanCommand implements Callable<Integer> {
   List<Path> hostProfiles = new ArrayList<>();
 
   @Option(
+      names = "--pools",
+      paramLabel = "FILE",
+      description =
+          "Worker pools with labels, taints and shapes (see docs/pools.md): workloads go to the"
+              + " first pool their nodeSelector, node affinity and tolerations allow; one plan per"
+              + " pool.")
+  Path pools;
+
+  @Option(
       names = "--worker",
       paramLabel = "cpu=N,memory=Q[,res=Q...]",
       description =
