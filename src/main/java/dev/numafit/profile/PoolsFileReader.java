@@ -176,16 +176,19 @@ public final class PoolsFileReader {
           continue;
         }
         PoolSpec p = pool(pm, path);
-        if (p == null) {
-          continue;
+        // Duplicates are checked on every pool with a name, even one with other errors.
+        Entry n = pm.entries().get("name");
+        if (n != null && n.value() instanceof Scalar s && !s.isNull()) {
+          Integer first = seen.putIfAbsent(s.text(), n.keyLine());
+          if (first != null) {
+            error(n.keyLine(), path + ".name",
+                "pool " + s.text() + " is already defined on line " + first);
+            continue;
+          }
         }
-        Integer first = seen.putIfAbsent(p.name(), p.source().line());
-        if (first != null) {
-          error(p.source().line(), path + ".name",
-              "pool " + p.name() + " is already defined on line " + first);
-          continue;
+        if (p != null) {
+          pools.add(p);
         }
-        pools.add(p);
       }
       return pools;
     }
