@@ -142,6 +142,15 @@ final class PlacementReader {
             continue;
           }
         }
+        JsonNode seconds = t.get("tolerationSeconds");
+        if (effect.equals(Optional.of(Taint.Effect.NO_EXECUTE)) && seconds != null
+            && seconds.isIntegralNumber()) {
+          // The pod is evicted that many seconds after it lands: no lasting placement.
+          notes.add("toleration of " + (text(t.get("key")) == null ? "every key" : text(t.get("key")))
+              + " with tolerationSeconds " + seconds.asLong() + " does not count: the pod is"
+              + " evicted after that time");
+          continue;
+        }
         tols.add(new Toleration(text(t.get("key")), exists, text(t.get("value")), effect));
       }
     }

@@ -183,4 +183,18 @@ class PoolsCliTest {
       assertTrue(Files.exists(tmp.resolve(pool + ".kubelet-config.yaml")), pool);
     }
   }
+
+  @Test
+  void plan_poolsFromConfigFile_relativeToTheConfigFolder(@TempDir Path tmp) throws Exception {
+    // docs/config-file.md: paths in the config file are relative to its folder.
+    Path conf = Files.createDirectories(tmp.resolve("conf"));
+    Files.writeString(conf.resolve("pools.yaml"),
+        "apiVersion: numafit.dev/v1alpha1\nkind: WorkerPools\nspec:\n  pools:\n"
+            + "    - name: only\n      worker: {cpu: 8, memory: 32Gi}\n");
+    Files.writeString(conf.resolve("numafit.yaml"), "pools: pools.yaml\n");
+    CliRun r = CliRun.of("plan", "-f", MANIFESTS, "--config", conf.resolve("numafit.yaml").toString(),
+        "-o", "json");
+    assertEquals(0, r.code(), r.err());
+    assertEquals("only", JSON.readTree(r.out()).get("pools").get(0).get("name").asString());
+  }
 }

@@ -131,4 +131,40 @@ class NodeRulesCorpusTest {
         p.pools().get(0).plan().notes().stream().anyMatch(n -> n.startsWith(nic + ": kubernetes.io/arch in")),
         p.pools().get(0).plan().notes().toString());
   }
+
+  @Test
+  void read_tolerationSecondsOnNoExecute_doesNotCount(@org.junit.jupiter.api.io.TempDir Path tmp)
+      throws Exception {
+    // "Taints and Tolerations": a NoExecute toleration with tolerationSeconds keeps the pod bound
+    // only that long after the taint appears; on a pool tainted from the start the pod would be
+    // evicted, so it is no lasting placement. The Equal form without seconds counts.
+    Path f = tmp.resolve("p.yaml");
+    java.nio.file.Files.writeString(
+        f,
+        """
+        apiVersion: v1
+        kind: Pod
+        metadata: {name: short-stay, namespace: shop}
+        spec:
+          tolerations:
+            - {key: key1, operator: Equal, value: value1, effect: NoExecute, tolerationSeconds: 3600}
+            - {key: key2, operator: Equal, value: value2, effect: NoSchedule}
+          containers:
+            - name: app
+              image: registry.example.com/shop/app:1
+              resources: {requests: {cpu: 100m, memory: 64Mi}}
+        """);
+    Demand d =
+        new ManifestReader()
+            .read(List.of(f.toString()), new ByteArrayInputStream(new byte[0]),
+                ReadOptions.defaults());
+    Workload w = only(d, "short-stay");
+    assertEquals(
+        List.of(new Toleration("key2", false, "value2", Optional.of(Taint.Effect.NO_SCHEDULE))),
+        w.rules().node().tolerations());
+    assertEquals(
+        List.of("toleration of key1 with tolerationSeconds 3600 does not count: the pod is evicted"
+            + " after that time"),
+        w.rules().notModelled());
+  }
 }
