@@ -234,4 +234,17 @@ class NodeFitTest {
     // evicts running ones).
     assertFalse(fit(PlacementRules.NONE, pool(), new Taint("key1", "", Effect.NO_EXECUTE)).fits());
   }
+
+  @Test
+  void of_matchFieldsTerm_assumedToHoldAndNoted() {
+    // PodSpec API reference (NodeSelectorTerm.matchFields): field selectors on the node object,
+    // such as metadata.name. A plan's workers have no names yet: assumed to hold, reported.
+    PlacementRules r =
+        affinity(new NodeTerm(List.of(), List.of("metadata.name=worker-7")));
+    NodeFit f = fit(r, pool());
+    assertTrue(f.fits());
+    assertEquals(
+        List.of("matchFields metadata.name=worker-7 is not modelled (assumed to hold)"),
+        f.assumed());
+  }
 }
