@@ -32,6 +32,8 @@ import picocli.CommandLine.ParentCommand;
       "  render-manifests | numafit plan -f - --worker cpu=8,memory=32Gi",
       "  numafit plan -f manifests/ --host-profile a.yaml --host-profile b.yaml \\",
       "      --host-failures 1 --max-utilization 80 --kubelet-config out/",
+      "  numafit plan -f manifests-examples/cold-chain/manifests/ \\",
+      "      --pools manifests-examples/cold-chain/pools.yaml",
       "",
       "Exit codes: 0 done (oversize pods are listed, not an error), 2 usage or input"
           + " error, 3 internal error."
