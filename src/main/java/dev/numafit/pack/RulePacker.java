@@ -253,6 +253,20 @@ public final class RulePacker {
       int hostFailures,
       boolean zoneFailure,
       int maxExtra) {
+    return hostsToSurvive(groups, capacity, topo, layout, hostFailures, zoneFailure, maxExtra,
+        Progress.NONE);
+  }
+
+  /** {@link #hostsToSurvive} telling {@code progress} each failure set checked. */
+  public static FailureResult hostsToSurvive(
+      List<Group> groups,
+      long[] capacity,
+      Topology topo,
+      Result layout,
+      int hostFailures,
+      boolean zoneFailure,
+      int maxExtra,
+      Progress progress) {
     if (hostFailures == 0 && !zoneFailure) {
       return new FailureResult(layout.hosts(), true, true);
     }
@@ -275,8 +289,11 @@ public final class RulePacker {
         exhaustive = false;
       }
       FailureSet failed = null;
-      for (FailureSet set : failureSets(groups, capacity, topo, layout, hosts, hostFailures,
-          zoneFailure)) {
+      List<FailureSet> sets =
+          failureSets(groups, capacity, topo, layout, hosts, hostFailures, zoneFailure);
+      long checked = 0;
+      for (FailureSet set : sets) {
+        progress.update(Progress.Phase.FAILURES, ++checked, sets.size());
         if (survived.contains(set.key())) {
           continue;
         }
