@@ -11,7 +11,9 @@ import dev.numafit.manifest.ManifestReader;
 import dev.numafit.manifest.ReadOptions;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.pack.ExactPacker;
 import dev.numafit.pack.VectorPacker;
+import dev.numafit.plan.ExactRefused;
 import dev.numafit.plan.PlanInput;
 import dev.numafit.plan.Planner;
 import dev.numafit.profile.HostProfileReader;
@@ -80,11 +82,19 @@ final class Pipeline {
         new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
     Sized sized = size(o, profiles);
     warnings.addAll(sized.warnings());
+    VectorPacker packer = new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort());
     Planner planner =
-        new Planner(new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort()));
+        o.exact()
+            ? new Planner(packer, new ExactPacker(ExactPacker.DEFAULT_NODE_LIMIT * o.effort()))
+            : new Planner(packer);
     List<Plan> plans = new ArrayList<>();
     for (PlanInput in : sized.inputs()) {
-      plans.add(planner.plan(demand, in));
+      try {
+        plans.add(planner.plan(demand, in));
+      } catch (ExactRefused ex) {
+        throw new UsageException(
+            in.hostProfile().map(h -> "host profile " + h + ": ").orElse("") + ex.getMessage());
+      }
     }
     List<WorkerShape> shapes = sized.shapes();
     Map<String, BigDecimal> costs = sized.costs();

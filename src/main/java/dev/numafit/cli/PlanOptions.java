@@ -29,7 +29,10 @@ import java.util.SortedMap;
  * @param kubeletConfigDir where to write KubeletConfiguration files, when asked
  * @param out the report file, when not standard output
  * @param placementOptions --zones, --zone-failures and --spread-replicas-across
- * @param effort --effort: the packer's step budget in multiples of the default, 0..1000
+ * @param effort --effort: the packer's step budget in multiples of the default, 0..1000 (with
+ *     --exact, also the search-node limit in multiples of its default)
+ * @param exact --exact: prove the minimum worker count (rule-free inputs, at most {@link
+ *     dev.numafit.plan.Planner#EXACT_MAX_PODS} pods to pack)
  */
 public record PlanOptions(
     List<String> files,
@@ -50,7 +53,8 @@ public record PlanOptions(
     ReportFormat format,
     Optional<Path> out,
     PlacementOptions placementOptions,
-    int effort) {
+    int effort,
+    boolean exact) {
   public PlanOptions {
     Objects.requireNonNull(placementOptions, "placementOptions");
     files = List.copyOf(files);
@@ -225,7 +229,8 @@ public record PlanOptions(
         Optional.ofNullable(c.common.out),
         new PlacementOptions(
             c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey),
-        c.effort);
+        c.effort,
+        c.exact);
   }
 
   private static Optional<Resources> parse(
