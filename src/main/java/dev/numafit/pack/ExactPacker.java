@@ -174,6 +174,10 @@ public final class ExactPacker {
     private int opened;
     private final long[] remaining;
     private final long[] free;
+    /** Items placed on the current path: the depth, indexing the per-depth buffers below. */
+    private int placedSoFar;
+    private int[][] candidates;
+    private double[][] slacks;
     /** Bin of each copy placed, per position in {@link #order}: {@code placed[p][c]}. */
     private final int[][] placed;
 
@@ -229,6 +233,9 @@ public final class ExactPacker {
     int[] run(int k) {
       target = k;
       res = new long[Math.max(1, k) * Math.max(1, d)];
+      placedSoFar = 0;
+      candidates = new int[in.n + 1][k + 1];
+      slacks = new double[in.n + 1][k + 1];
       opened = 0;
       Arrays.fill(remaining, 0);
       for (int t = 0; t < in.types; t++) {
@@ -273,34 +280,53 @@ public final class ExactPacker {
       int t = order[p];
       int wt = t * d;
       int copy = in.count[t] - left;
-      int tried = 0;
+      // Candidate bins, fullest after the placement first (best fit): a packing, when there is
+      // one, tends to be found sooner.
+      int depth = placedSoFar;
+      int[] cand = candidates[depth];
+      double[] slack = slacks[depth];
+      int nc = 0;
       for (int b = minBin; b < opened; b++) {
         if (!fits(b, wt) || sameRoomAsEarlier(b, minBin, wt)) {
           continue;
         }
-        tried++;
+        double sl = 0;
+        for (int k = 0; k < d; k++) {
+          sl += (double) (res[b * d + k] - in.w[wt + k]) / in.cap[k];
+        }
+        int at = nc++;
+        while (at > 0 && slack[at - 1] > sl) {
+          cand[at] = cand[at - 1];
+          slack[at] = slack[at - 1];
+          at--;
+        }
+        cand[at] = b;
+        slack[at] = sl;
+      }
+      placedSoFar++;
+      for (int c = 0; c < nc; c++) {
+        int b = cand[c];
         apply(b, wt, -1);
         placed[p][copy] = b;
         boolean ok = place(p, left - 1, b);
         apply(b, wt, +1);
-        if (ok) {
-          return true;
-        }
-        if (aborted) {
-          return false;
+        if (ok || aborted) {
+          placedSoFar--;
+          return ok;
         }
       }
+      boolean ok = false;
       if (opened < target) {
         int b = opened++;
         System.arraycopy(in.cap, 0, res, b * d, d);
         apply(b, wt, -1);
         placed[p][copy] = b;
-        boolean ok = place(p, left - 1, b);
+        ok = place(p, left - 1, b);
         apply(b, wt, +1);
         opened--;
-        return ok;
       }
-      return false;
+      placedSoFar--;
+      return ok;
     }
 
     private boolean fits(int b, int wt) {
