@@ -21,6 +21,8 @@ import java.util.Objects;
  *       permutations are tried once.
  *   <li>At most one empty bin is tried per item, and of open bins with the same room left only
  *       the first: the others lead to the same subproblem.
+ *   <li>Open bins are tried fullest-after-the-placement first (best fit), so a packing, when
+ *       there is one, tends to be found early.
  *   <li>At every node, per dimension: the demand still to place, less the room left in open bins
  *       that can still take some remaining item, divided by a bin's room and rounded up, plus the
  *       bins already open, must not exceed {@code k}.
