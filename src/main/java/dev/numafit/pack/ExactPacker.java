@@ -179,6 +179,9 @@ public final class ExactPacker {
     /** Items placed on the current path: the depth, indexing the per-depth buffers below. */
     private int placedSoFar;
     private int[][] candidates;
+    /** Per bin: the position from which, with at most {@link #deadRoom}, it takes nothing; -1. */
+    private int[] deadAt;
+    private long[] deadRoom;
     private double[][] slacks;
     /** Bin of each copy placed, per position in {@link #order}: {@code placed[p][c]}. */
     private final int[][] placed;
@@ -236,6 +239,9 @@ public final class ExactPacker {
       target = k;
       res = new long[Math.max(1, k) * Math.max(1, d)];
       placedSoFar = 0;
+      deadAt = new int[Math.max(1, k)];
+      Arrays.fill(deadAt, -1);
+      deadRoom = new long[Math.max(1, k) * Math.max(1, d)];
       candidates = new int[in.n + 1][k + 1];
       slacks = new double[in.n + 1][k + 1];
       opened = 0;
@@ -289,21 +295,27 @@ public final class ExactPacker {
       double[] slack = slacks[depth];
       int nc = 0;
       for (int b = minBin; b < opened; b++) {
-        if (!fits(b, wt) || sameRoomAsEarlier(b, minBin, wt)) {
+        if (!fits(b, wt)) {
           continue;
         }
         double sl = 0;
         for (int k = 0; k < d; k++) {
           sl += (double) (res[b * d + k] - in.w[wt + k]) / in.cap[k];
         }
-        int at = nc++;
+        int at = nc;
         while (at > 0 && slack[at - 1] > sl) {
-          cand[at] = cand[at - 1];
-          slack[at] = slack[at - 1];
           at--;
         }
+        // Bins with the same room have the same slack, so they sit just before `at`: of such
+        // bins only the first (lowest index) is tried, the others lead to the same subproblem.
+        if (sameRoomBefore(b, cand, slack, at, sl)) {
+          continue;
+        }
+        System.arraycopy(cand, at, cand, at + 1, nc - at);
+        System.arraycopy(slack, at, slack, at + 1, nc - at);
         cand[at] = b;
         slack[at] = sl;
+        nc++;
       }
       placedSoFar++;
       for (int c = 0; c < nc; c++) {
@@ -340,12 +352,10 @@ public final class ExactPacker {
       return true;
     }
 
-    /**
-     * Whether an earlier candidate bin (from {@code minBin}) that also fits has the same room left
-     * in every dimension: placing there leads to the same subproblem, already searched.
-     */
-    private boolean sameRoomAsEarlier(int b, int minBin, int wt) {
-      for (int a = minBin; a < b; a++) {
+    /** Whether a candidate just before {@code at} with slack {@code sl} has b's room. */
+    private boolean sameRoomBefore(int b, int[] cand, double[] slack, int at, double sl) {
+      for (int c = at - 1; c >= 0 && slack[c] == sl; c--) {
+        int a = cand[c];
         boolean same = true;
         for (int k = 0; k < d; k++) {
           if (res[a * d + k] != res[b * d + k]) {
@@ -378,10 +388,25 @@ public final class ExactPacker {
      * {@code p} on (their copies not yet placed). Smallest types are tried first, so a bin with
      * room usually answers at once.
      */
-    private boolean takesSome(int rb, int p) {
+    private boolean takesSome(int b, int p) {
+      int rb = b * d;
       int base = p * d;
       for (int j = 0; j < d; j++) {
         if (res[rb + j] < suffixMin[base + j]) {
+          return false;
+        }
+      }
+      // A bin found unable to take anything stays so with less room and fewer types left:
+      // remember the room and position where that was seen, to skip the scan below.
+      if (deadAt[b] >= 0 && p >= deadAt[b]) {
+        boolean within = true;
+        for (int j = 0; j < d; j++) {
+          if (res[rb + j] > deadRoom[rb + j]) {
+            within = false;
+            break;
+          }
+        }
+        if (within) {
           return false;
         }
       }
@@ -398,6 +423,8 @@ public final class ExactPacker {
           return true;
         }
       }
+      deadAt[b] = p;
+      System.arraycopy(res, rb, deadRoom, rb, d);
       return false;
     }
 
@@ -406,7 +433,7 @@ public final class ExactPacker {
       Arrays.fill(free, 0);
       for (int b = 0; b < opened; b++) {
         int rb = b * d;
-        if (takesSome(rb, p)) {
+        if (takesSome(b, p)) {
           for (int k = 0; k < d; k++) {
             free[k] += res[rb + k];
           }
