@@ -126,6 +126,11 @@ public final class ExactPacker {
       return result(start.bins(), start.binOfItem(), start.steps(), true, 0, start.bins());
     }
     Search s = new Search(in, nodeLimit);
+    // No bin holds more than perBin items, so ceil(n / perBin) bins are needed.
+    lower = Math.max(lower, Math.toIntExact((in.n + s.perBin - 1L) / s.perBin));
+    if (start.bins() <= lower) {
+      return result(start.bins(), start.binOfItem(), start.steps(), true, s.nodes, start.bins());
+    }
     int[] best = start.binOfItem();
     int bestBins = start.bins();
     for (int target = bestBins - 1; target >= lower; target = bestBins - 1) {
@@ -168,6 +173,11 @@ public final class ExactPacker {
     private final long[] suffixMin;
 
     long nodes;
+    /** No bin holds more items than this ({@link #maxPerBin}). */
+    final int perBin;
+    private long cardinalityLimit;
+    /** Items in each open bin. */
+    private int[] inBin;
     boolean aborted;
 
     // State of the current search.
@@ -204,6 +214,7 @@ public final class ExactPacker {
       for (int p = 0; p < in.types; p++) {
         placed[p] = new int[in.count[order[p]]];
       }
+      this.perBin = maxPerBin();
     }
 
     private static int[] order(VectorPacker.Instance in) {
@@ -234,6 +245,109 @@ public final class ExactPacker {
       return out;
     }
 
+    /**
+     * The most items any one bin can hold: the largest j for which some j items fit together. It
+     * tries j = 2, 3, ... by a depth-first search over the items (copies of one type taken in
+     * order, so each subset is seen once) and stops at the first j with no such subset. The
+     * search spends nodes from the same limit; if they run out, or j passes the per-dimension
+     * count of smallest items that fit, that count is used (an upper bound, so still valid). It
+     * may spend at most a tenth of the node limit.
+     */
+    private int maxPerBin() {
+      if (in.n <= 1) {
+        return Math.max(1, in.n);
+      }
+      // Per dimension, how many of the smallest demands fit one bin: an upper bound.
+      int upper = in.n;
+      for (int k = 0; k < d; k++) {
+        long[] sizes = new long[in.n];
+        for (int i = 0; i < in.n; i++) {
+          sizes[i] = in.w(in.typeOfItem[i], k);
+        }
+        Arrays.sort(sizes);
+        long load = 0;
+        int fit = 0;
+        while (fit < in.n && load + sizes[fit] <= in.cap[k]) {
+          load += sizes[fit++];
+        }
+        upper = Math.min(upper, fit);
+      }
+      // Items by increasing sum of normalised demands, copies of a type adjacent.
+      int[] items = new int[in.n];
+      int at = 0;
+      for (int p = in.types - 1; p >= 0; p--) {
+        for (int c = 0; c < in.count[order[p]]; c++) {
+          items[at++] = order[p];
+        }
+      }
+      long[] sufMin = new long[(in.n + 1) * d];
+      Arrays.fill(sufMin, in.n * d, (in.n + 1) * d, Long.MAX_VALUE);
+      for (int i = in.n - 1; i >= 0; i--) {
+        for (int k = 0; k < d; k++) {
+          sufMin[i * d + k] = Math.min(sufMin[(i + 1) * d + k], in.w(items[i], k));
+        }
+      }
+      // At most a tenth of the nodes: the rest are for the search itself.
+      cardinalityLimit = nodes + limit / 10;
+      int best = 1;
+      for (int j = 2; j <= upper; j++) {
+        int found = subsetOf(items, sufMin, j, 0, 0, new long[d]);
+        if (found < 0) {
+          return upper;
+        }
+        if (found == 0) {
+          return best;
+        }
+        best = j;
+      }
+      return upper;
+    }
+
+    /** 1: some {@code left} more items from index {@code from} fit beside {@code load}; 0: none; -1: out of nodes. */
+    private int subsetOf(int[] items, long[] sufMin, int left, int from, int depth, long[] load) {
+      if (left == 0) {
+        return 1;
+      }
+      for (int i = from; i <= items.length - left; i++) {
+        if (i > from && items[i] == items[i - 1]) {
+          continue;
+        }
+        if (nodes >= cardinalityLimit) {
+          return -1;
+        }
+        nodes++;
+        boolean fits = true;
+        boolean hopeless = false;
+        for (int k = 0; k < d; k++) {
+          long w = in.w(items[i], k);
+          if (load[k] + w > in.cap[k]) {
+            fits = false;
+          }
+          // Even the smallest demands from i on, left of them, overflow: so do all later i.
+          if (load[k] + (long) left * sufMin[i * d + k] > in.cap[k]) {
+            hopeless = true;
+          }
+        }
+        if (hopeless) {
+          return 0;
+        }
+        if (!fits) {
+          continue;
+        }
+        for (int k = 0; k < d; k++) {
+          load[k] += in.w(items[i], k);
+        }
+        int r = subsetOf(items, sufMin, left - 1, i + 1, depth + 1, load);
+        for (int k = 0; k < d; k++) {
+          load[k] -= in.w(items[i], k);
+        }
+        if (r != 0) {
+          return r;
+        }
+      }
+      return 0;
+    }
+
     /** A packing into at most {@code k} bins (item → bin), or null: none, or the limit ran out. */
     int[] run(int k) {
       target = k;
@@ -242,6 +356,7 @@ public final class ExactPacker {
       deadAt = new int[Math.max(1, k)];
       Arrays.fill(deadAt, -1);
       deadRoom = new long[Math.max(1, k) * Math.max(1, d)];
+      inBin = new int[Math.max(1, k)];
       candidates = new int[in.n + 1][k + 1];
       slacks = new double[in.n + 1][k + 1];
       opened = 0;
@@ -371,6 +486,7 @@ public final class ExactPacker {
     }
 
     private void apply(int b, int wt, int sign) {
+      inBin[b] -= sign;
       for (int k = 0; k < d; k++) {
         long w = in.w[wt + k];
         res[b * d + k] += sign * w;
@@ -431,13 +547,19 @@ public final class ExactPacker {
     private boolean boundHolds(int p) {
       long[] free = this.free;
       Arrays.fill(free, 0);
+      long freeSlots = 0;
       for (int b = 0; b < opened; b++) {
         int rb = b * d;
         if (takesSome(b, p)) {
           for (int k = 0; k < d; k++) {
             free[k] += res[rb + k];
           }
+          freeSlots += Math.max(0, perBin - inBin[b]);
         }
+      }
+      long slotsNeeded = (long) in.n - placedSoFar - freeSlots;
+      if (slotsNeeded > 0 && opened + (slotsNeeded - 1) / perBin + 1 > target) {
+        return false;
       }
       for (int k = 0; k < d; k++) {
         long need = remaining[k] - free[k];
