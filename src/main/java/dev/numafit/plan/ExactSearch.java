@@ -9,6 +9,7 @@ package dev.numafit.plan;
  * @param nodes search nodes spent (pod placements tried); 0 when the heuristic packing already
  *     met the lower bound
  * @param lowerBound no packing uses fewer workers; equal to the workers needed when proved
+ *     (the plan's {@code lowerBound} carries the same value)
  */
 public record ExactSearch(boolean provedOptimal, long nodes, int lowerBound) {
   public ExactSearch {

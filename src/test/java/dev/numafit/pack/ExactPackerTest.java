@@ -53,8 +53,11 @@ class ExactPackerTest {
     assertFalse(r.provedOptimal());
     assertEquals(10, r.nodes());
     assertTrue(r.packing().bins() <= start.bins());
-    // The lower bound reported is the instance's LowerBound, not a claim about the optimum.
-    assertEquals(LowerBound.of(b.items(), b.capacity()), r.lowerBound());
+    // The lower bound reported is a bound, not a claim about the optimum: at least the
+    // instance's LowerBound (16, lower_bound column of the benchmark index) and below the
+    // optimum 17 (OPT column), since nothing was proved.
+    assertEquals(16, LowerBound.of(b.items(), b.capacity()));
+    assertTrue(r.lowerBound() >= 16 && r.lowerBound() < 17, "lower bound " + r.lowerBound());
   }
 
   @Test
