@@ -43,6 +43,9 @@ public final class ExactPacker {
    */
   public static final long DEFAULT_NODE_LIMIT = 2_000_000L;
 
+  /** Nodes between two progress reports (a power of two, so the test is a mask). */
+  public static final long PROGRESS_EVERY = 1L << 16;
+
   private final long nodeLimit;
 
   /** A packer with {@link #DEFAULT_NODE_LIMIT}. */
@@ -112,6 +115,14 @@ public final class ExactPacker {
    *     a different number of items or overfills a bin
    */
   public Result improve(long[][] items, long[] capacity, Packing start) {
+    return improve(items, capacity, start, Progress.NONE);
+  }
+
+  /**
+   * {@link #improve(long[][], long[], Packing)} telling {@code progress} the nodes searched, every
+   * {@link #PROGRESS_EVERY} nodes, against the node limit; the result does not depend on it.
+   */
+  public Result improve(long[][] items, long[] capacity, Packing start, Progress progress) {
     VectorPacker.Instance in = VectorPacker.Instance.of(items, capacity);
     if (start.items() != items.length) {
       throw new IllegalArgumentException(
@@ -130,6 +141,7 @@ public final class ExactPacker {
       return result(start.bins(), start.binOfItem(), start.steps(), true, 0, start.bins());
     }
     Search s = new Search(in, nodeLimit);
+    s.progress = progress;
     // No bin holds more than perBin items, so ceil(n / perBin) bins are needed.
     lower = Math.max(lower, Math.toIntExact((in.n + s.perBin - 1L) / s.perBin));
     if (start.bins() <= lower) {
@@ -183,6 +195,8 @@ public final class ExactPacker {
     /** Items in each open bin. */
     private int[] inBin;
     boolean aborted;
+    /** Told the node count every {@link #PROGRESS_EVERY} nodes. */
+    Progress progress = Progress.NONE;
 
     // State of the current search.
     private int target;
@@ -401,6 +415,9 @@ public final class ExactPacker {
         return false;
       }
       nodes++;
+      if ((nodes & (PROGRESS_EVERY - 1)) == 0) {
+        progress.update(Progress.Phase.EXACT, nodes, limit);
+      }
       if (!boundHolds(p)) {
         return false;
       }

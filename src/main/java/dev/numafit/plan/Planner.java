@@ -269,7 +269,7 @@ public final class Planner {
     } else {
       Packing packing = packer.pack(items, capacity);
       if (exact.isPresent()) {
-        ExactPacker.Result r = exact.get().improve(items, capacity, packing);
+        ExactPacker.Result r = exact.get().improve(items, capacity, packing, progress);
         packing = r.packing();
         exactSearch = Optional.of(new ExactSearch(r.provedOptimal(), r.nodes(), r.lowerBound()));
       }

@@ -46,6 +46,29 @@ class ExactPackerTest {
   }
 
   @Test
+  void improve_withProgress_reportsNodesInOrderAndSameResult() throws Exception {
+    BenchInstance b = BenchInstance.load("Falkenauer_u120_08.txt");
+    // Not proved at this limit (the search stays one bin above the optimum 50), so it spends
+    // every node: several progress reports.
+    Packing start = new VectorPacker(0).pack(b.items(), b.capacity());
+    java.util.List<long[]> seen = new java.util.ArrayList<>();
+    ExactPacker packer = new ExactPacker(300_000);
+    ExactPacker.Result watched =
+        packer.improve(b.items(), b.capacity(), start,
+            (phase, done, total) -> seen.add(new long[] {phase.ordinal(), done, total}));
+    ExactPacker.Result plain = packer.improve(b.items(), b.capacity(), start);
+    // A listener only watches: the packing, the proof and the node count are the same.
+    assertEquals(plain, watched);
+    assertEquals(watched.nodes() / ExactPacker.PROGRESS_EVERY, seen.size(), "one report per block");
+    assertFalse(seen.isEmpty(), "this search spends " + watched.nodes() + " nodes");
+    for (int i = 0; i < seen.size(); i++) {
+      assertEquals(Progress.Phase.EXACT.ordinal(), seen.get(i)[0]);
+      assertEquals((i + 1) * ExactPacker.PROGRESS_EVERY, seen.get(i)[1]);
+      assertEquals(300_000, seen.get(i)[2]);
+    }
+  }
+
+  @Test
   void improve_limitTooSmall_keepsBestFoundWithoutProof() throws Exception {
     BenchInstance b = BenchInstance.load("class7_40_3_1.vbp");
     Packing start = new VectorPacker(0).pack(b.items(), b.capacity());
