@@ -208,6 +208,7 @@ public final class PlanMarkdownWriter implements ReportWriter<PlanReport> {
           listOrNone(pp.workloads()), listOrNone(pp.daemonSets()));
     }
     sb.append(t.render()).append('\n');
+    sb.append(esc(PoolTotals.of(report.pools()).sentence())).append("\n\n");
   }
 
   private static String listOrNone(List<String> items) {

@@ -188,6 +188,7 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
           Integer.toString(pp.daemonSets().size()));
     }
     sb.append(t.render("  "));
+    sb.append(TextSupport.wrap(style.width(), "  ", "  ", PoolTotals.of(report.pools()).sentence()));
     sb.append(TextSupport.wrap(style.width(), "  ", "  ", "Each workload is placed in the first"
         + " pool it may run on; the scheduler may spread it over every such pool."));
     return sb.toString();

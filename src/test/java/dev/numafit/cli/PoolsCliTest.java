@@ -71,7 +71,7 @@ class PoolsCliTest {
   }
 
   @Test
-  void plan_coldChainPools_textHasPoolSectionsTableAndUnplaceable() {
+  void plan_coldChainPools_textHasPoolSectionsTableAndUnplaceable() throws Exception {
     CliRun r = CliRun.of("plan", "-f", MANIFESTS, "--pools", POOLS);
     assertEquals(0, r.code(), r.err());
     assertTrue(r.out().contains("Pool batch on host profile two-socket-8-nodes\n"), r.out());
@@ -80,6 +80,17 @@ class PoolsCliTest {
     assertTrue(r.out().contains("\nUnplaceable (node rules no pool satisfies; not packed):\n"
         + "  coldchain/Deployment/temperature-archive: pool general: required node\n"), r.out());
     assertFalse(r.out().contains("Comparison:"), r.out());
+    // The totals are the sums of the pools' JSON figures (workersNeeded, hostsNeeded).
+    JsonNode plans = JSON.readTree(
+        CliRun.of("plan", "-f", MANIFESTS, "--pools", POOLS, "-o", "json").out()).get("plans");
+    int workers = 0;
+    int hosts = 0;
+    for (JsonNode p : plans) {
+      workers += p.get("workersNeeded").asInt();
+      hosts += p.get("hostsNeeded").asInt();
+    }
+    assertTrue(r.out().contains("  All pools: " + workers + " workers on " + hosts
+        + " hosts (pools do not share hosts).\n"), r.out());
   }
 
   @Test
@@ -88,6 +99,7 @@ class PoolsCliTest {
     assertEquals(0, md.code(), md.err());
     assertTrue(md.out().contains("## Worker pools\n"), md.out());
     assertTrue(md.out().contains("## Unplaceable workloads\n"), md.out());
+    assertTrue(md.out().contains("\nAll pools: "), md.out());
     assertTrue(md.out().contains("## Pool ingest on host profile two-socket-32c\n"), md.out());
     CliRun html = CliRun.of("plan", "-f", MANIFESTS, "--pools", POOLS, "-o", "html");
     assertEquals(0, html.code(), html.err());
