@@ -12,7 +12,8 @@
 # the whole run). New coverage goes to .cifuzz-corpus/ (not committed); a crashing input is
 # written into the target's seed directory under src/test/resources/dev/numafit/verify/fuzz/,
 # where the next plain `mvn verify` runs it as a regression test: commit it with its fix.
-# Prints one line per target (executions, seconds, crashes) and exits 1 when a target failed.
+# Prints one line per target (executions, seconds, crashes, wall time, load average at its end)
+# and exits 1 when a target failed.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 seconds=${1:-15}
@@ -30,14 +31,16 @@ for t in $targets; do
 -Djazzer.internal.arg.0=fuzz -Djazzer.internal.arg.1=-max_total_time=${seconds}" \
     >"target/fuzz-$t.log" 2>&1 || rc=$?
   took=$(( $(date +%s) - start ))
+  load=$(cut -d' ' -f1 /proc/loadavg 2>/dev/null || echo unknown)
   cat "target/fuzz-$t.log" >>"$log"
   runs=$(grep -oE 'Done [0-9]+ runs in [0-9]+ second' "target/fuzz-$t.log" | tail -1 || true)
-  crashes=$(grep -cE '^== Java Exception|^==[0-9]+== ERROR: libFuzzer' "target/fuzz-$t.log" || true)
+  # libFuzzer names each crashing input it saves ("Test unit written to ...").
+  crashes=$(grep -c 'Test unit written to' "target/fuzz-$t.log" || true)
   if [ "$rc" -ne 0 ]; then
     status=1
     echo "fuzz $t: FAILED (${runs:-no libFuzzer summary}; crashes: $crashes; see target/fuzz-$t.log)"
   else
-    echo "fuzz $t: ${runs:-no libFuzzer summary}(s), crashes: $crashes, wall ${took} s"
+    echo "fuzz $t: ${runs:-no libFuzzer summary}(s), crashes: $crashes, wall ${took} s, load average $load"
   fi
 done
 exit $status

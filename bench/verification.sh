@@ -17,7 +17,7 @@ mvn -B -o failsafe:integration-test -Dit.test=LargeDocumentIT >>"$log" 2>&1 || {
   tail -60 "$log"; echo "LargeDocumentIT failed; docs/verification.md left unchanged" >&2; exit 1; }
 fuzz() { # target class -> "N runs in S s, C crashes"
   echo "$fuzz_out" | grep -m1 "^fuzz $1:" \
-    | sed -E 's/.*Done ([0-9]+) runs in ([0-9]+) second\(s\), crashes: ([0-9]+).*/\1 executions in \2 s, \3 crashes/'
+    | sed -E 's/.*Done ([0-9]+) runs in ([0-9]+) second\(s\), crashes: ([0-9]+).*load average (.*)$/\1 executions in \2 s, \3 crashes (load average \4)/'
 }
 large_line=$(grep -m1 '^large document:' "$log" || echo "not run")
 kubectl_line=$(grep -m1 -E '^kubectl differential:|^SKIPPED: kubectl differential' "$log" || echo "not run")

@@ -53,8 +53,17 @@ class LargeDocumentIT {
         "last pod ledger-" + (pods - 1) + " missing");
     System.out.printf(java.util.Locale.ROOT,
         "large document: %d bytes, %d pods in one YAML document, read and sized in %.0f s,"
-            + " peak heap %d MB (%s, from the GC log)%n",
-        size, pods, seconds, peakHeapMb(gcLog), HEAP);
+            + " peak heap %d MB (%s, from the GC log; load average %s)%n",
+        size, pods, seconds, peakHeapMb(gcLog), HEAP, loadAverage());
+  }
+
+  /** The one-minute load average where the system shows it (timings here are noisy). */
+  static String loadAverage() {
+    try {
+      return Files.readString(Path.of("/proc/loadavg")).split(" ")[0];
+    } catch (java.io.IOException | RuntimeException ex) {
+      return "unknown";
+    }
   }
 
   /** The largest heap occupancy before a collection in a {@code -Xlog:gc} log, in MB. */
