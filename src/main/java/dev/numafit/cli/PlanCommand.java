@@ -32,6 +32,8 @@ import picocli.CommandLine.ParentCommand;
       "  render-manifests | numafit plan -f - --worker cpu=8,memory=32Gi",
       "  numafit plan -f manifests/ --host-profile a.yaml --host-profile b.yaml \\",
       "      --host-failures 1 --max-utilization 80 --kubelet-config out/",
+      "  numafit plan -f manifests-examples/cold-chain/manifests/ \\",
+      "      --pools manifests-examples/cold-chain/pools.yaml",
       "",
       "Exit codes: 0 done (oversize pods are listed, not an error), 2 usage or input"
           + " error, 3 internal error."
@@ -54,6 +56,15 @@ public final class PlanCommand implements Callable<Integer> {
       paramLabel = "FILE",
       description = "Host profile (see docs/host-profile.md). Repeatable: one plan each, compared.")
   List<Path> hostProfiles = new ArrayList<>();
+
+  @Option(
+      names = "--pools",
+      paramLabel = "FILE",
+      description =
+          "Worker pools with labels, taints and shapes (see docs/pools.md): workloads go to the"
+              + " first pool their nodeSelector, node affinity and tolerations allow; one plan per"
+              + " pool.")
+  Path pools;
 
   @Option(
       names = "--worker",
