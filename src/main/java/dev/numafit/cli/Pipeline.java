@@ -11,7 +11,9 @@ import dev.numafit.manifest.ManifestReader;
 import dev.numafit.manifest.ReadOptions;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.pack.ExactPacker;
 import dev.numafit.pack.VectorPacker;
+import dev.numafit.plan.ExactRefused;
 import dev.numafit.plan.PlanInput;
 import dev.numafit.plan.Planner;
 import dev.numafit.plan.PoolPlan;
@@ -97,8 +99,11 @@ final class Pipeline {
     Map<Path, ProfileLoad> profiles = readProfiles(profilePaths, profileErrors);
     List<Diagnostic> warnings =
         new ArrayList<>(checkInput(demand.diagnostics(), profileErrors, o.skipInvalid()));
+    VectorPacker packer = new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort());
     Planner planner =
-        new Planner(new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort()));
+        o.exact()
+            ? new Planner(packer, new ExactPacker(ExactPacker.DEFAULT_NODE_LIMIT * o.effort()))
+            : new Planner(packer);
     PoolPlanner poolPlanner = new PoolPlanner(planner);
     List<Plan> plans = new ArrayList<>();
     List<WorkerShape> shapes;
@@ -144,6 +149,8 @@ final class Pipeline {
             new PlanReport(demand, plans, comparison, warnings, sized.hosts(), List.of(),
                 unplaceable);
       }
+    } catch (ExactRefused ex) {
+      throw new UsageException(ex.getMessage());
     } finally {
       progress.clear();
     }

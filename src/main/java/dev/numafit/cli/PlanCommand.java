@@ -133,8 +133,17 @@ public final class PlanCommand implements Callable<Integer> {
       paramLabel = "N",
       description =
           "Packing effort: N times the default step budget; 0 runs only the first"
-              + " first-fit-decreasing pass (default: 1). Same input and N, same plan.")
+              + " first-fit-decreasing pass (default: 1). With --exact, also N times the"
+              + " default search-node limit (2,000,000). Same input and N, same plan.")
   int effort = 1;
+
+  @Option(
+      names = "--exact",
+      description =
+          "Search for the fewest workers and prove it, or say the effort limit ran out first."
+              + " Rule-free inputs of at most 500 pods to pack only (see"
+              + " docs/how-numbers-are-computed.md).")
+  boolean exact;
 
   @Option(
       names = "--zones",

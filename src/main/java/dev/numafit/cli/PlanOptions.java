@@ -29,8 +29,11 @@ import java.util.SortedMap;
  * @param kubeletConfigDir where to write KubeletConfiguration files, when asked
  * @param out the report file, when not standard output
  * @param placementOptions --zones, --zone-failures and --spread-replicas-across
- * @param effort --effort: the packer's step budget in multiples of the default, 0..1000
+ * @param effort --effort: the packer's step budget in multiples of the default, 0..1000 (with
+ *     --exact, also the search-node limit in multiples of its default)
  * @param pools --pools: the WorkerPools file, when given
+ * @param exact --exact: prove the minimum worker count (rule-free inputs, at most {@link
+ *     dev.numafit.plan.Planner#EXACT_MAX_PODS} pods to pack)
  */
 public record PlanOptions(
     List<String> files,
@@ -52,7 +55,8 @@ public record PlanOptions(
     Optional<Path> out,
     PlacementOptions placementOptions,
     int effort,
-    Optional<Path> pools) {
+    Optional<Path> pools,
+    boolean exact) {
   public PlanOptions {
     Objects.requireNonNull(pools, "pools");
     Objects.requireNonNull(placementOptions, "placementOptions");
@@ -234,7 +238,8 @@ public record PlanOptions(
         new PlacementOptions(
             c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey),
         c.effort,
-        Optional.ofNullable(c.pools));
+        Optional.ofNullable(c.pools),
+        c.exact);
   }
 
   private static Optional<Resources> parse(

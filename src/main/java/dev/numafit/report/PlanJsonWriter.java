@@ -83,6 +83,14 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
     m.put("workersPerHost", p.workersPerHost().isPresent() ? p.workersPerHost().getAsInt() : null);
     m.put("workersNeeded", p.workersNeeded());
     m.put("lowerBound", p.lowerBound());
+    p.exact().ifPresent(
+        e -> {
+          Map<String, Object> x = JsonSupport.object();
+          x.put("provedOptimal", e.provedOptimal());
+          x.put("nodes", e.nodes());
+          x.put("lowerBound", e.lowerBound());
+          m.put("exact", x);
+        });
     m.put("hostsNeeded", p.hostsNeeded().isPresent() ? p.hostsNeeded().getAsInt() : null);
     if (p.hostsNeededWithoutFailures().isPresent()) {
       m.put("hostsNeededWithoutFailures", p.hostsNeededWithoutFailures().getAsInt());

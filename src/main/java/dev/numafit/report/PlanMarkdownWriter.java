@@ -232,6 +232,10 @@ public final class PlanMarkdownWriter implements ReportWriter<PlanReport> {
     }
     s.row("Workers needed", Integer.toString(p.workersNeeded()));
     s.row("No packing can use fewer than", Integer.toString(p.lowerBound()));
+    p.exact().ifPresent(
+        e -> s.row("Exact search",
+            (e.provedOptimal() ? "proved optimal" : "best found within the effort limit")
+                + " (" + e.nodes() + " search nodes)"));
     if (p.hostsNeeded().isPresent()) {
       s.row("Hosts needed", optional(p.hostsNeeded()));
     }

@@ -108,6 +108,10 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
         sb,
         "Workers needed",
         List.of(p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")"));
+    p.exact().ifPresent(
+        e -> kv(sb, "Exact search", List.of(
+            (e.provedOptimal() ? "proved optimal" : "best found within the effort limit")
+                + " (" + e.nodes() + " search nodes)")));
     if (p.hostsNeeded().isPresent()) {
       String hostsLine = Integer.toString(p.hostsNeeded().getAsInt());
       if (p.hostsNeededWithoutFailures().isPresent()) {

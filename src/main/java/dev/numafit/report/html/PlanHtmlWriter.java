@@ -316,6 +316,13 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
         .append(figure(k + "workersNeeded", p.workersNeeded(), "" + p.workersNeeded()))
         .append("</tr>\n<tr><th scope=\"row\">No packing can use fewer than</th>")
         .append(figure(k + "lowerBound", p.lowerBound(), "" + p.lowerBound())).append("</tr>\n");
+    p.exact().ifPresent(
+        e -> sb.append("<tr><th scope=\"row\">Exact search</th>")
+            .append(figure(k + "exact/provedOptimal", e.provedOptimal(),
+                e.provedOptimal() ? "proved optimal" : "best found within the effort limit"))
+            .append("</tr>\n<tr><th scope=\"row\">Search nodes</th>")
+            .append(figure(k + "exact/nodes", e.nodes(), "" + e.nodes()))
+            .append("</tr>\n"));
     if (p.hostsNeeded().isPresent()) {
       sb.append("<tr><th scope=\"row\">Hosts needed</th>")
           .append(optionalInt(k + "hostsNeeded", p.hostsNeeded())).append("</tr>\n");
