@@ -2,13 +2,24 @@
 # Regenerates docs/verification.md from a run of the verification tests.
 # Usage: bench/verification.sh   (from the project root; needs Maven; kubectl on PATH for the
 # differential row, otherwise that row says it was skipped)
+#        FUZZ_SECONDS=240 bench/verification.sh   (fuzz each target longer; default 15 s, as CI)
 set -euo pipefail
 cd "$(dirname "$0")/.."
 log=$(mktemp)
 trap 'rm -f "$log"' EXIT
-tests='KubectlDescribeDifferentialTest,BadInputCorpusTest,BoundedResourcesTest,OddButValidInputTest,RandomInputProperties,ClusterFaultsCliTest,SecretsAndReadOnlyTest'
+tests='KubectlDescribeDifferentialTest,BadInputCorpusTest,BoundedResourcesTest,OddButValidInputTest,RandomInputProperties,ClusterFaultsCliTest,SecretsAndReadOnlyTest,ClusterReaderCutOffTest,ListItemsTest'
 mvn -B -o test -Dtest="$tests" -Dsurefire.failIfNoSpecifiedTests=false >"$log" 2>&1 || {
   tail -60 "$log"; echo "verification tests failed; docs/verification.md left unchanged" >&2; exit 1; }
+fuzz_seconds=${FUZZ_SECONDS:-15}
+fuzz_out=$(bench/fuzz.sh "$fuzz_seconds") || {
+  echo "$fuzz_out"; echo "fuzzing found a crash; docs/verification.md left unchanged" >&2; exit 1; }
+mvn -B -o failsafe:integration-test -Dit.test=LargeDocumentIT >>"$log" 2>&1 || {
+  tail -60 "$log"; echo "LargeDocumentIT failed; docs/verification.md left unchanged" >&2; exit 1; }
+fuzz() { # target class -> "N runs in S s, C crashes"
+  echo "$fuzz_out" | grep -m1 "^fuzz $1:" \
+    | sed -E 's/.*Done ([0-9]+) runs in ([0-9]+) second\(s\), crashes: ([0-9]+).*load average (.*)$/\1 executions in \2 s, \3 crashes (load average \4)/'
+}
+large_line=$(grep -m1 '^large document:' "$log" || echo "not run")
 kubectl_line=$(grep -m1 -E '^kubectl differential:|^SKIPPED: kubectl differential' "$log" || echo "not run")
 corpus_line=$(grep -m1 '^bad-input corpus:' "$log" || echo "not run")
 tries() { # property name -> "tries = N" of its jqwik report
@@ -40,6 +51,12 @@ an unchanged result gives an unchanged file).
 | random-input tests: quantity path | RandomInputProperties | $(tries quantityPath_randomAmount) tries, no exception |
 | faults: expired token (401), untrusted certificate, unknown context: one message, exit 2, no snapshot written, only GET requests | ClusterFaultsCliTest | $(count ClusterFaultsCliTest) |
 | secrets: a known fake token and password never in stdout, stderr or the snapshot file with --verbose; only GET requests | SecretsAndReadOnlyTest | $(count SecretsAndReadOnlyTest) |
+| faults: a page cut off mid-body (Content-Length larger than the body) with the connection left open past --request-timeout, and with the connection closed: one message naming the server, no partial result, only GET requests | ClusterReaderCutOffTest | $(count ClusterReaderCutOffTest) |
+| coverage-guided fuzzing (Jazzer, ${fuzz_seconds} s, own JVM): quantity path | QuantityFuzzTest | $(fuzz QuantityFuzzTest) |
+| coverage-guided fuzzing: manifest reader | ManifestFuzzTest | $(fuzz ManifestFuzzTest) |
+| coverage-guided fuzzing: host-profile reader | HostProfileFuzzTest | $(fuzz HostProfileFuzzTest) |
+| coverage-guided fuzzing: snapshot reader | SnapshotFuzzTest | $(fuzz SnapshotFuzzTest) |
+| a 50 MB manifest that is one YAML document (a List of Pods, generated), \`--max-document-size 64Mi\`, read to the end in a separate JVM | LargeDocumentIT | ${large_line} |
 
 Also covered elsewhere: paging, expired continue tokens, 403/429/500, slow answers, a truncated
 body and a refused connection (ClusterReaderFaultTest); output files are written through a
@@ -60,16 +77,38 @@ before anything is read (Main.outputOverInput, MainOutputOverInputTest).
 - A manifest without \`metadata.name\` was sized silently; it now carries a warning.
 - A 50 MB manifest was read whole into memory; inputs above the size limit (32Mi characters by
   default, \`--max-document-size\` to raise it) are now refused before they are read.
+- An API server answer cut off mid-body (a Content-Length larger than the body) with the
+  connection left open kept \`numafit snapshot\` waiting for ever: the client's request timeout
+  ends when the response headers arrive. The request timeout now covers the whole answer, body
+  included (ResponseDeadline), and the read stops with "the API server URL did not answer list
+  pods within N s (--request-timeout); nothing of its answer was used" (ClusterReaderCutOffTest,
+  a plain-socket server that cuts page 2 of the pod list; without the fix the test hangs until its
+  60 s guard).
+- A 50 MB manifest that is one YAML document (a List of about 230,000 Pods) with
+  \`--max-document-size 64Mi\` ran out of a 1 GB heap after about ten minutes: the whole tree
+  and a line table entry for every value were held at once. The items of a list whose \`kind\`
+  comes before \`items\` (as YAML lists are usually written) are now read one by one
+  (ListItemsTest: same workloads and messages as a list read whole); the reading then fits in
+  1 GB, and the JSON report of 230,000 workloads needs the rest of a 2 GB heap (LargeDocumentIT).
+  A list whose \`kind\` follows its \`items\` (\`kubectl get -o json\` orders keys so) is
+  still read whole.
+- Coverage-guided fuzzing found no crash in the runs recorded above.
 
 ## Limits and open points
 
 - Parser limits: 32Mi characters per input file, standard input and document
   (\`--max-document-size\`), nesting 500 levels, 100,000 values copied through YAML aliases per
   document.
-- Fuzzing here is random-input testing with jqwik (random text and mutations of valid files), not
-  coverage-guided fuzzing; a Jazzer setup is not part of the build yet.
-- Open: an API server answer whose body is shorter than its Content-Length, with the connection
-  left open, kept \`numafit snapshot\` waiting past \`--request-timeout\` in a trial run; not yet
-  covered by a test.
+- Fuzzing: four Jazzer targets (src/test/java/dev/numafit/verify/fuzz), each property "a result
+  or numafit's own refusal naming the file, no other exception, each input within 10 s". A plain
+  \`mvn verify\` runs them in regression mode over their seed inputs
+  (src/test/resources/dev/numafit/verify/fuzz/*Inputs/); CI (\`.ci/run\`) then fuzzes each for
+  15 s in its own JVM with \`bench/fuzz.sh 15\`. A longer local run:
+  \`mvn -B test-compile && bench/fuzz.sh 600\` (ten minutes per target), or one target:
+  \`FUZZ_TARGETS=ManifestFuzzTest bench/fuzz.sh 3600\`. New coverage is kept in
+  .cifuzz-corpus/ (not committed) and reused by the next run; a crashing input is written into
+  the target's seed directory, where it becomes a regression test: commit it with its fix.
+- The random-input tests (jqwik) stay beside the fuzz targets: they run in every build at no
+  start-up cost.
 DOC
 echo "wrote docs/verification.md"

@@ -35,7 +35,10 @@ public final class ClusterConnector {
     return forConfig(config(s, env), s);
   }
 
-  /** A client for {@code base} with the settings' timeouts and retries (tests pass a mock's). */
+  /**
+   * A client for {@code base} with the settings' timeouts and retries (tests pass a mock's). The
+   * request timeout covers the whole answer, body included ({@link ResponseDeadline}).
+   */
   public static KubernetesClient forConfig(Config base, ConnectionSettings s) {
     long timeout = s.requestTimeout().toMillis();
     base.setRequestTimeout((int) Math.min(Integer.MAX_VALUE, timeout));
@@ -43,7 +46,12 @@ public final class ClusterConnector {
         (int) Math.min(timeout, ConnectionSettings.CONNECT_TIMEOUT.toMillis()));
     base.setRequestRetryBackoffLimit(s.retries());
     base.setRequestRetryBackoffInterval((int) ConnectionSettings.BACKOFF.toMillis());
-    return new KubernetesClientBuilder().withConfig(base).build();
+    // The client's timeout stops at the response headers; the interceptor holds the body to it.
+    ResponseDeadline deadline = new ResponseDeadline(s.requestTimeout());
+    return new KubernetesClientBuilder().withConfig(base)
+        .withHttpClientBuilderConsumer(b -> b.addOrReplaceInterceptor(ResponseDeadline.NAME,
+            deadline))
+        .build();
   }
 
   /** The client configuration for the settings. */

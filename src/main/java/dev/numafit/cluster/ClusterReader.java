@@ -286,6 +286,10 @@ public final class ClusterReader {
               + Math.min(settings.requestTimeout().toSeconds(),
                   ConnectionSettings.CONNECT_TIMEOUT.toSeconds()) + " s";
         }
+        if (t instanceof ResponseDeadline.BodyTimeoutException) {
+          return "the API server " + server + " did not answer " + what + " within "
+              + seconds() + " (--request-timeout); nothing of its answer was used";
+        }
         if (t instanceof HttpTimeoutException || t instanceof SocketTimeoutException) {
           return "the API server " + server + " did not answer " + what + " within "
               + seconds() + " (--request-timeout)";

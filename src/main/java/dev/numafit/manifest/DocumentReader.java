@@ -117,8 +117,22 @@ final class DocumentReader {
     int emptyDocuments;
   }
 
+  /** Where documents go; list items may go one by one. */
+  interface Sink {
+    /** A whole document. */
+    void document(LocatedDocument doc);
+
+    /**
+     * One item of a list document ({@code kind: List} or {@code PodList} and the like), as its
+     * own document (pointers start at the item), passed on as soon as it is parsed so that a huge
+     * list never has to be held whole. The list document itself follows with empty items.
+     */
+    void listItem(LocatedDocument item, String listKind);
+  }
+
   /**
-   * Reads {@code text}; documents go to {@code sink}, problems to {@code diagnostics}.
+   * Reads {@code text}; documents go to {@code sink}, problems to {@code diagnostics}. List items
+   * stay inside their list document.
    *
    * @param asJson parse as JSON (several values may follow each other) instead of YAML
    */
@@ -127,6 +141,26 @@ final class DocumentReader {
       String text,
       boolean asJson,
       Consumer<LocatedDocument> sink,
+      List<Diagnostic> diagnostics) {
+    return read(file, text, asJson, sink, null, diagnostics);
+  }
+
+  /**
+   * Reads {@code text} as {@link #read(String, String, boolean, Consumer, List)}, but passes the
+   * items of a list document to {@code sink} one by one when the list's {@code kind} is written
+   * before its {@code items} (as YAML lists usually are); otherwise the list stays whole.
+   */
+  Outcome read(
+      String file, String text, boolean asJson, Sink sink, List<Diagnostic> diagnostics) {
+    return read(file, text, asJson, sink::document, sink, diagnostics);
+  }
+
+  private Outcome read(
+      String file,
+      String text,
+      boolean asJson,
+      Consumer<LocatedDocument> sink,
+      Sink items,
       List<Diagnostic> diagnostics) {
     Outcome outcome = new Outcome();
     int offset = 0; // lines skipped before the current parser's input
@@ -146,7 +180,10 @@ final class DocumentReader {
           Map<String, Integer> positions = new HashMap<>();
           List<DuplicateKey> duplicates = new ArrayList<>();
           JsonNode root =
-              build(p, t, "", positions, offset, new HashMap<>(), duplicates, new AliasBudget());
+              items != null && t == JsonToken.START_OBJECT
+                  ? buildTop(file, p, positions, offset, duplicates, items)
+                  : build(p, t, "", positions, offset, new HashMap<>(), duplicates,
+                      new AliasBudget());
           for (DuplicateKey d : duplicates) {
             diagnostics.add(
                 Diagnostic.warning(
@@ -226,6 +263,59 @@ final class DocumentReader {
       budget.sizes.put(anchor.toString(), size(node));
     }
     return node;
+  }
+
+  /**
+   * Builds a document's top-level mapping as {@link #buildValue} does, except that the items of
+   * a list whose {@code kind} (ending in {@code List}) came before {@code items} are built one at
+   * a time and handed to {@code sink}; the returned mapping then holds an empty item list.
+   */
+  private JsonNode buildTop(
+      String file,
+      JsonParser p,
+      Map<String, Integer> positions,
+      int offset,
+      List<DuplicateKey> duplicates,
+      Sink sink) {
+    positions.put("", offset + line(p.currentTokenLocation()));
+    Map<String, JsonNode> anchors = new HashMap<>();
+    AliasBudget budget = new AliasBudget();
+    ObjectNode o = NODES.objectNode();
+    String kind = null;
+    JsonToken n;
+    while ((n = p.nextToken()) == JsonToken.PROPERTY_NAME) {
+      String name = p.currentName();
+      String child = "/" + LocatedDocument.segment(name);
+      int keyLine = offset + line(p.currentTokenLocation());
+      JsonToken v = p.nextToken();
+      if (o.has(name)) {
+        duplicates.add(new DuplicateKey(keyLine, name));
+      }
+      if (name.equals("items") && v == JsonToken.START_ARRAY && kind != null
+          && kind.endsWith("List") && !o.has("items")) {
+        positions.put(child, offset + line(p.currentTokenLocation()));
+        JsonToken item;
+        while ((item = p.nextToken()) != JsonToken.END_ARRAY) {
+          Map<String, Integer> itemPositions = new HashMap<>();
+          int itemLine = offset + line(p.currentTokenLocation());
+          JsonNode node =
+              build(p, item, "", itemPositions, offset, anchors, duplicates, budget);
+          sink.listItem(new LocatedDocument(file, node, itemPositions, itemLine), kind);
+        }
+        o.set(name, NODES.arrayNode());
+        continue;
+      }
+      JsonNode value = build(p, v, child, positions, offset, anchors, duplicates, budget);
+      if (name.equals("kind") && value.isString()) {
+        kind = value.asString();
+      }
+      o.set(name, value);
+      Integer valueLine = positions.get(child);
+      if (valueLine != null && valueLine != keyLine) {
+        positions.put(child + LocatedDocument.KEY_SUFFIX, keyLine);
+      }
+    }
+    return o;
   }
 
   /** Values in a tree, counting containers and leaves; bounded by the alias budget. */

@@ -390,7 +390,23 @@ public final class ManifestReader {
       }
       // Each document is read as soon as it is parsed, so its tree and line table become garbage
       // at once instead of all of them staying alive until the end of the file.
-      DocumentReader.Outcome o = documents.read(file, text, json, this::readDocument, diags);
+      DocumentReader.Outcome o =
+          documents.read(
+              file,
+              text,
+              json,
+              new DocumentReader.Sink() {
+                @Override
+                public void document(LocatedDocument doc) {
+                  readDocument(doc);
+                }
+
+                @Override
+                public void listItem(LocatedDocument item, String listKind) {
+                  readListItem(item, listKind);
+                }
+              },
+              diags);
       finishText(file, text, List.of(), o, List.of());
     }
 
@@ -422,6 +438,33 @@ public final class ManifestReader {
         diags.add(
             Diagnostic.error(
                 new SourceRef(doc.file(), doc.startLine()),
+                "cannot read this document ("
+                    + e.getClass().getSimpleName()
+                    + ": "
+                    + e.getMessage()
+                    + ")"));
+      }
+    }
+
+    /** One item of a list read on its own ({@link DocumentReader.Sink#listItem}). */
+    void readListItem(LocatedDocument item, String listKind) {
+      try {
+        String itemKind = listKind.equals("List") ? null : listKind.substring(0, listKind.length() - 4);
+        JsonNode node = item.root();
+        String k = text(node.get("kind"));
+        if (!node.isObject() || (k == null && itemKind == null)) {
+          diags.add(
+              Diagnostic.note(
+                  new SourceRef(item.file(), item.startLine()),
+                  "list item is not a Kubernetes object (no kind), skipped"));
+          return;
+        }
+        object(item, "", node, k == null ? itemKind : k);
+      } catch (RuntimeException e) {
+        // The same safety net as for a whole document.
+        diags.add(
+            Diagnostic.error(
+                new SourceRef(item.file(), item.startLine()),
                 "cannot read this document ("
                     + e.getClass().getSimpleName()
                     + ": "

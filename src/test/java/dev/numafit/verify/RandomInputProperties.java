@@ -30,9 +30,10 @@ import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 
 /**
- * Random-input tests (jqwik; not coverage-guided fuzzing: Jazzer was not wired into this build)
- * for the four readers of outside input: the quantity path, the manifest reader, the host-profile
- * reader and the snapshot reader. Inputs are random text and random byte-level mutations of the
+ * Random-input tests (jqwik, not coverage-guided) for the four readers of outside input: the
+ * quantity path, the manifest reader, the host-profile reader and the snapshot reader. They run in
+ * every build at no start-up cost; the coverage-guided fuzz targets for the same readers are in
+ * dev.numafit.verify.fuzz (bench/fuzz.sh). Inputs are random text and random byte-level mutations of the
  * valid corpus files. The property: a reader answers with diagnostics or a refusal, never with
  * any other exception.
  */
