@@ -4,31 +4,46 @@ import java.util.Arrays;
 import java.util.SplittableRandom;
 
 /**
- * Bin elimination by local search over a pool of unassigned items: the improvement phase of
- * {@link VectorPacker}.
+ * Bin elimination by local search: the improvement phase of {@link VectorPacker}.
  *
- * <p>From a feasible packing in m bins, the least-filled bin is emptied into the pool and the
- * search tries to place every pool item into the remaining m−1 bins. A move exchanges up to two
- * pool items with up to two items of one bin (1-0, 2-0, 1-1, 2-1, 1-2, 2-2), keeps that bin within
- * capacity in every dimension and must lower the pool's weight. Weights start at the item's size
- * (sum over dimensions of demand / capacity); whenever no move lowers the pool's weight, the items
- * still in the pool grow heavier, so an item that is hard to place eventually displaces lighter
- * ones (a weighting scheme in the spirit of the consistent neighbourhood search of "Consistent
- * neighborhood search for one-dimensional bin packing and two-dimensional vector packing", Computers
- * &amp; OR, 2016; written here from the idea). An item just moved out of a bin may not go back into
- * it for a few iterations (a short tabu list), so two moves cannot undo each other. When the pool
- * empties, m−1 bins are proven enough and the search goes on with m−2, until the lower bound or the
- * step budget is reached.
+ * <p>From a feasible packing in m bins, the least-filled bin is emptied and the search tries to
+ * fit its items into the other m−1 bins; when it succeeds, m−1 bins are proven enough and it goes
+ * on with m−2, until the lower bound or the step budget is reached. Two phases share the budget,
+ * each starting from the best packing so far:
  *
- * <p>Deterministic: ties between equally good moves are broken by a {@link SplittableRandom} with
- * the fixed seed {@link #SEED}; effort is counted in steps (one step per candidate exchange or
- * item examined), never in time.
+ * <ol>
+ *   <li>Overflow balancing (the first {@link #BALANCE_SHARE} of the budget): the emptied bin's
+ *       items go where they overflow least, then one or two items of an overflowing bin are
+ *       exchanged with none, one or two items of another bin, choosing the exchange that lowers
+ *       the total overflow (demand over capacity, normalised, summed over dimensions) the most and,
+ *       among equals, leaves the bins within capacity fullest (sum of squared fills), so free room
+ *       gathers where an overflowing item can go. A short tabu list (an item may not go back to
+ *       the bin it left for {@link #TENURE} to twice that many iterations) lets the search cross
+ *       plateaus without undoing itself. Strong on one dimension.
+ *   <li>Pool exchanges: the emptied bin's items form a pool of unassigned items; a move exchanges
+ *       one or two pool items with none, one or two items of one bin (1-0, 2-0, 1-1, 2-1, 1-2,
+ *       2-2), keeps that bin within capacity in every dimension and must lower the pool's weight.
+ *       Weights start at the item's size (sum over dimensions of demand / capacity); whenever no
+ *       move lowers the pool's weight, the items still in the pool grow heavier, so an item that
+ *       is hard to place eventually displaces lighter ones (the weighting idea of "Consistent
+ *       neighborhood search for one-dimensional bin packing and two-dimensional vector packing",
+ *       Computers &amp; OR, 2016, written here from the idea), with a short tabu list as above.
+ *       Strong on several dimensions.
+ * </ol>
+ *
+ * <p>Feasibility is always checked per dimension; the normalised sums only rank moves.
+ * Deterministic: ties between equally good moves are broken by a {@link SplittableRandom} with the
+ * fixed seed {@link #SEED}; effort is counted in steps (one step per candidate exchange or bin
+ * examined), never in time, and only complete packings are ever returned.
  */
 final class PoolSearch {
-  /** Seed of the tie-breaking random stream: fixed, so the same input gives the same packing. */
+  /**
+   * Seed of the tie-breaking random stream (the ASCII of "numafit"): fixed, so the same input
+   * always gives the same packing.
+   */
   static final long SEED = 0x6E756D61666974L;
 
-  /** Iterations an item stays barred from the bin it just left. */
+  /** Pool phase: iterations an item stays barred from the bin it just left. */
   static final int TABU_TENURE = 3;
 
   /** Share of an item's size added to its weight each time the pool is stuck. */
@@ -42,6 +57,7 @@ final class PoolSearch {
    * random 0..this more, so that cycles of one fixed length cannot persist.
    */
   static final int TENURE = 5;
+
   private final int n;
   private final int d;
   private final long[] cap;

@@ -26,8 +26,10 @@ import java.util.Map;
  */
 public final class VectorPacker {
   /**
-   * Default step budget. On the published instances (docs/performance.md) larger budgets gained
-   * almost nothing; on 150,000 pods this keeps packing well under half a second.
+   * Default step budget. On 150,000 pods this keeps packing under half a second (the greedy
+   * passes spend it all there); on the published instances a few times more still gains a little
+   * (docs/performance.md, "Packing quality on published instances"), which {@code --effort N}
+   * buys. The budget is the same whatever the input's size: large inputs simply get fewer passes.
    */
   public static final long DEFAULT_STEP_BUDGET = 2_000_000L;
 
