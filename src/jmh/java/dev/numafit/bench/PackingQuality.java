@@ -35,7 +35,7 @@ import java.util.stream.Stream;
  *
  * <p>With {@code --plan-every N}, every N-th instance (by position in the index CSV, from 0) is
  * also written as pods (dimensions as cpu in whole cores, memory in bytes and the extended
- * resource {@code example.com/dim3}) and run through {@code numafit plan --worker ...
+ * resource {@code vector.example.com/dim3}) and run through {@code numafit plan --worker ...
  * --kubelet-reserve none --max-pods n} in process; the worker count it reports must equal the
  * direct packer's.
  *
@@ -188,7 +188,10 @@ public final class PackingQuality {
       throw new IllegalArgumentException("the plan path needs a budget that is a multiple of "
           + VectorPacker.DEFAULT_STEP_BUDGET + " (--effort N)");
     }
-    String[] dims = {"cpu", "memory", "example.com/dim3"};
+    // The plan orders resources by name; the third name sorts after "memory" so the packer sees
+    // the dimensions in the same order as when called directly (normalised sums are added in
+    // that order, and their last bits can break ties).
+    String[] dims = {"cpu", "memory", "vector.example.com/dim3"};
     int d = in.capacity.length;
     if (d > dims.length) {
       throw new IllegalArgumentException("at most 3 dimensions through plan");
