@@ -3,7 +3,6 @@ package dev.numafit.cli;
 import dev.numafit.cluster.ClusterConnector;
 import dev.numafit.cluster.ClusterReader;
 import dev.numafit.cluster.ConnectionSettings;
-import dev.numafit.cluster.ReadProgress;
 import dev.numafit.cluster.SnapshotFile;
 import dev.numafit.cluster.model.ClusterModel;
 import dev.numafit.diag.Diagnostic;
@@ -111,12 +110,13 @@ final class ClusterOptions {
       return SnapshotFile.read(snapshot);
     }
     ConnectionSettings s = settings();
-    boolean tty = "1".equals(System.getProperty("numafit.stderrTty"));
-    ReadProgress progress = tty ? new TerminalProgress(console) : ReadProgress.NONE;
+    ProgressLine progress = ProgressLine.of(console);
     Consumer<String> log = verbose ? line -> console.err().println("numafit: " + line)
         : line -> { };
     try (KubernetesClient client = ClusterConnector.connect(s, env())) {
       return new ClusterReader(client, s, progress, log).read();
+    } finally {
+      progress.clear();
     }
   }
 
@@ -131,26 +131,6 @@ final class ClusterOptions {
     }
     for (String missing : m.missing()) {
       console.report(Diagnostic.warning(null, "not read: " + missing));
-    }
-  }
-
-  /** "pods: 42,000 read, 84 pages" on one terminal line, updated in place. */
-  private static final class TerminalProgress implements ReadProgress {
-    private final Console console;
-
-    TerminalProgress(Console console) {
-      this.console = console;
-    }
-
-    @Override
-    public void update(dev.numafit.cluster.ResourceType type, long items, int pages,
-        boolean done) {
-      console.err().print(String.format(Locale.ROOT, "\r\u001b[K%s: %,d read, %d page%s",
-          type.display(), items, pages, pages == 1 ? "" : "s"));
-      if (done) {
-        console.err().print("\r\u001b[K");
-      }
-      console.err().flush();
     }
   }
 }

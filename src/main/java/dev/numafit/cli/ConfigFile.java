@@ -29,7 +29,8 @@ final class ConfigFile {
   static final String DEFAULT_NAME = "numafit.yaml";
 
   private static final Set<String> PATH_OPTIONS =
-      Set.of("filename", "host-profile", "kubelet-config", "out", "baseline");
+      Set.of("filename", "host-profile", "kubelet-config", "out", "baseline", "snapshot",
+          "kubeconfig");
   private static final Set<String> NOT_ALLOWED = Set.of("config", "help", "version");
 
   private ConfigFile() {}
@@ -43,6 +44,17 @@ final class ConfigFile {
    * @throws InputException listing every problem with file:line
    */
   static List<Entry> read(Path file, String shown, CommandSpec spec) throws InputException {
+    return read(file, shown, spec, List.of(), Set.of());
+  }
+
+  /**
+   * {@link #read(Path, String, CommandSpec)} for a file that several commands share: a key that
+   * is no option of {@code spec} but one of {@code others} belongs to those commands and is
+   * passed over, and a key the command line gives ({@code given}: long option names with
+   * dashes) is passed over unchecked, since the command line's value replaces it.
+   */
+  static List<Entry> read(Path file, String shown, CommandSpec spec, List<CommandSpec> others,
+      Set<String> given) throws InputException {
     String text;
     try {
       text = Files.readString(file, StandardCharsets.UTF_8);
@@ -75,6 +87,11 @@ final class ConfigFile {
         p.nextToken();
         JsonNode value = mapper.readTree(p);
         OptionSpec opt = NOT_ALLOWED.contains(key) ? null : spec.findOption("--" + key);
+        if (!NOT_ALLOWED.contains(key) && key.length() > 1 && (opt == null
+            ? others.stream().anyMatch(o -> o.findOption("--" + key) != null)
+            : given.contains(opt.longestName()))) {
+          continue;
+        }
         if (opt == null || key.length() == 1) {
           errors.add(
               Diagnostic.error(

@@ -22,7 +22,8 @@ import picocli.CommandLine.ParseResult;
  */
 public final class Main {
   /** The commands that read the project config file. */
-  private static final java.util.Set<String> CONFIGURABLE = java.util.Set.of("plan", "check");
+  private static final java.util.Set<String> CONFIGURABLE =
+      java.util.Set.of("plan", "check", "review");
 
   private Main() {}
 
@@ -190,8 +191,18 @@ public final class Main {
       }
     }
     CommandSpec plan = sub.commandSpec();
+    // One file serves every command that reads it: keys of the others are theirs.
+    List<CommandSpec> others = new ArrayList<>();
+    for (String name : new java.util.TreeSet<>(CONFIGURABLE)) {
+      if (!name.equals(plan.name())) {
+        others.add(probe.getSubcommands().get(name).getCommandSpec());
+      }
+    }
+    java.util.Set<String> given = new java.util.HashSet<>();
+    sub.matchedOptions().forEach(o -> given.add(o.longestName()));
     List<ConfigFile.Entry> entries = new ArrayList<>();
-    for (ConfigFile.Entry e : ConfigFile.read(config, displayPath(config, console).toString(), plan)) {
+    for (ConfigFile.Entry e : ConfigFile.read(config, displayPath(config, console).toString(), plan,
+        others, given)) {
       if (!sub.hasMatchedOption(e.option())) {
         entries.add(e);
       }

@@ -83,8 +83,13 @@ final class Pipeline {
     Planner planner =
         new Planner(new VectorPacker(VectorPacker.DEFAULT_STEP_BUDGET * o.effort()));
     List<Plan> plans = new ArrayList<>();
-    for (PlanInput in : sized.inputs()) {
-      plans.add(planner.plan(demand, in));
+    ProgressLine progress = ProgressLine.of(console);
+    try {
+      for (PlanInput in : sized.inputs()) {
+        plans.add(planner.plan(demand, in, progress));
+      }
+    } finally {
+      progress.clear();
     }
     List<WorkerShape> shapes = sized.shapes();
     Map<String, BigDecimal> costs = sized.costs();

@@ -7,7 +7,9 @@ import dev.numafit.diag.InputException;
 import dev.numafit.host.HostProfile;
 import dev.numafit.profile.HostProfileReader;
 import dev.numafit.profile.ProfileLoad;
+import dev.numafit.report.PlanHost;
 import dev.numafit.report.ReportWriter;
+import dev.numafit.report.html.ReviewHtmlWriter;
 import dev.numafit.report.ReviewJsonWriter;
 import dev.numafit.report.ReviewTextWriter;
 import dev.numafit.resource.Resources;
@@ -64,11 +66,11 @@ public final class ReviewCommand implements Callable<Integer> {
 
   @Mixin ClusterOptions cluster = new ClusterOptions();
 
+  // Required, but checked in call(): picocli's own check would run before numafit.yaml is read.
   @Option(
       names = "--pool",
-      required = true,
       paramLabel = "KEY=VALUE",
-      description = "The pool: nodes with this label.")
+      description = "The pool: nodes with this label (required; may come from numafit.yaml).")
   String pool;
 
   @Option(
@@ -120,8 +122,9 @@ public final class ReviewCommand implements Callable<Integer> {
 
   @Option(
       names = {"-o", "--output"},
-      paramLabel = "text|json|markdown",
-      description = "Output format (default: text).")
+      paramLabel = "text|json|markdown|html",
+      description = "Output format (default: text); html: one self-contained page with"
+          + " pictures, best with --out FILE.")
   String output = "text";
 
   @Option(names = "--out", paramLabel = "FILE", description = "Write the report to FILE.")
@@ -130,10 +133,20 @@ public final class ReviewCommand implements Callable<Integer> {
   @Option(names = "--verbose", description = "List every request made (never a credential).")
   boolean verbose;
 
+  @Option(
+      names = "--config",
+      paramLabel = "FILE",
+      description = "Read options from FILE (default: numafit.yaml in the current folder).")
+  Path config;
+
   @Override
   public Integer call() throws InputException {
     Console console = root.console();
     List<String> problems = new ArrayList<>();
+    if (pool == null) {
+      throw new UsageException(List.of("missing --pool KEY=VALUE: the label of the pool's nodes,"
+          + " e.g. --pool pool=general"));
+    }
     String[] kv = pool.split("=", 2);
     if (kv.length != 2 || kv[0].isBlank() || kv[1].isBlank()) {
       problems.add("--pool " + pool + ": expected KEY=VALUE, e.g. --pool pool=general");
@@ -147,9 +160,9 @@ public final class ReviewCommand implements Callable<Integer> {
       }
     };
     String format = output.toLowerCase(Locale.ROOT);
-    if (!List.of("text", "json", "markdown").contains(format)) {
+    if (!List.of("text", "json", "markdown", "html").contains(format)) {
       problems.add("unknown output format \"" + output
-          + "\" (expected one of: text, json, markdown)");
+          + "\" (expected one of: text, json, markdown, html)");
     }
     if (nodes != null && nodes < 1) {
       problems.add("--nodes must be 1 or more, got " + nodes);
@@ -188,6 +201,8 @@ public final class ReviewCommand implements Callable<Integer> {
       oneNode = Optional.of(deriver.oneNode(load.profile()).capacity());
     }
     Optional<NodeShape> shape = Optional.empty();
+    // The worker VM the HTML report draws on the host: the after-shape, else the one-node worker.
+    Optional<WorkerShape> drawn = profile.map(deriver::oneNode);
     if ("one-node".equals(worker)) {
       WorkerShape s = deriver.oneNode(profile.orElseThrow());
       shape = Optional.of(new NodeShape("one-node (cpu=" + s.vcpus() + ",memory="
@@ -199,6 +214,7 @@ public final class ReviewCommand implements Callable<Integer> {
           w.get(Resources.MEMORY), w.without(Resources.CPU).without(Resources.MEMORY));
       shape = Optional.of(new NodeShape(worker, s.capacity(),
           Allocatable.compute(s, KubeletReserve.defaults())));
+      drawn = Optional.of(s);
     }
     int perHost = profile.map(p -> Math.max(1, p.nodes().size())).orElse(1);
     ResizeRequest request = new ResizeRequest(kv[0], kv[1],
@@ -216,6 +232,7 @@ public final class ReviewCommand implements Callable<Integer> {
     ReportWriter<Review> writer = switch (format) {
       case "json" -> new ReviewJsonWriter();
       case "markdown" -> new ReviewTextWriter(true);
+      case "html" -> htmlWriter(profile, drawn, worker != null, deriver);
       default -> new ReviewTextWriter(false);
     };
     if (format.equals("text")) {
@@ -227,5 +244,20 @@ public final class ReviewCommand implements Callable<Integer> {
     }
     ReportOutput.write(writer.render(review), Optional.ofNullable(out), console);
     return review.fits() ? ExitCode.OK.code() : ExitCode.FINDINGS.code();
+  }
+
+  /** The HTML writer, drawing the host when a profile was given and the shape fits on it. */
+  private static ReviewHtmlWriter htmlWriter(Optional<HostProfile> profile,
+      Optional<WorkerShape> drawn, boolean shapeGiven, ShapeDeriver deriver) {
+    if (profile.isEmpty() || drawn.isEmpty()) {
+      return new ReviewHtmlWriter();
+    }
+    try {
+      PlanHost host = new PlanHost(profile.get(), deriver.layout(profile.get(), drawn.get()));
+      return new ReviewHtmlWriter(Optional.of(host), drawn, shapeGiven);
+    } catch (IllegalArgumentException ex) {
+      // A shape larger than the host has no layout on it: the page then draws no host.
+      return new ReviewHtmlWriter();
+    }
   }
 }

@@ -237,6 +237,20 @@ public final class RulePacker {
       int hostFailures,
       boolean zoneFailure,
       int maxExtra) {
+    return hostsToSurvive(groups, capacity, topo, layout, hostFailures, zoneFailure, maxExtra,
+        Progress.NONE);
+  }
+
+  /** {@link #hostsToSurvive} telling {@code progress} each failure set checked. */
+  public static FailureResult hostsToSurvive(
+      List<Group> groups,
+      long[] capacity,
+      Topology topo,
+      Result layout,
+      int hostFailures,
+      boolean zoneFailure,
+      int maxExtra,
+      Progress progress) {
     if (hostFailures == 0 && !zoneFailure) {
       return new FailureResult(layout.hosts(), true, true);
     }
@@ -266,7 +280,9 @@ public final class RulePacker {
         }
       }
       boolean all = true;
+      long checked = 0;
       for (int[] set : sets) {
+        progress.update(Progress.Phase.FAILURES, ++checked, sets.size());
         if (!survives(groups, capacity, topo, layout, hosts, set)) {
           all = false;
           break;

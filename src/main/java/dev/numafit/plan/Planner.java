@@ -8,6 +8,7 @@ import dev.numafit.fit.SpanningRoom;
 import dev.numafit.demand.PlacementRules;
 import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
+import dev.numafit.pack.Progress;
 import dev.numafit.pack.RulePacker;
 import dev.numafit.pack.VectorPacker;
 import dev.numafit.resource.Resources;
@@ -69,6 +70,15 @@ public final class Planner {
 
   /** Plans the demand onto the input's worker shape. */
   public Plan plan(Demand demand, PlanInput in) {
+    return plan(demand, in, Progress.NONE);
+  }
+
+  /**
+   * {@link #plan(Demand, PlanInput)}, telling {@code progress} how far the long steps have come:
+   * packing more than {@link Progress#PACK_REPORT_ABOVE} pods (when it starts and ends) and each
+   * set of failed hosts the failure-headroom check tries. The plan is the same whatever is passed.
+   */
+  public Plan plan(Demand demand, PlanInput in, Progress progress) {
     List<Diagnostic> warnings = new ArrayList<>(in.warnings());
     List<String> notes = new ArrayList<>(in.notes());
     Resources allocatable = in.allocatable();
@@ -185,6 +195,10 @@ public final class Planner {
     int lowerBound;
     int[] binOfItem;
     RulePacker.Result layout = null;
+    boolean large = items.length > Progress.PACK_REPORT_ABOVE;
+    if (large) {
+      progress.update(Progress.Phase.PACK, 0, items.length);
+    }
     if (ruled) {
       List<RulePacker.Group> packed = new ArrayList<>(groups);
       layout = RulePacker.pack(packed, capacity, topo);
@@ -234,6 +248,10 @@ public final class Planner {
       }
     }
 
+    if (large) {
+      progress.update(Progress.Phase.PACK, items.length, items.length);
+    }
+
     OptionalInt hosts = OptionalInt.empty();
     OptionalInt hostsWithoutFailures = OptionalInt.empty();
     if (in.workersPerHost().isPresent()) {
@@ -245,7 +263,8 @@ public final class Planner {
             + (po.zoneFailures() > 0 ? plain / (po.zones() - 1) + po.zones() : 0);
         RulePacker.FailureResult fr =
             RulePacker.hostsToSurvive(
-                groups, capacity, topo, layout, in.hostFailures(), po.zoneFailures() > 0, extra);
+                groups, capacity, topo, layout, in.hostFailures(), po.zoneFailures() > 0, extra,
+                progress);
         hosts = OptionalInt.of(fr.hosts());
         hostsWithoutFailures = OptionalInt.of(plain);
         if (!fr.survives()) {

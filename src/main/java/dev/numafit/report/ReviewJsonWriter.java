@@ -2,6 +2,7 @@ package dev.numafit.report;
 
 import dev.numafit.review.DrainPlan;
 import dev.numafit.review.HostFailureCheck;
+import dev.numafit.review.NodeFill;
 import dev.numafit.review.PendingPod;
 import dev.numafit.review.Removal;
 import dev.numafit.review.Review;
@@ -13,8 +14,8 @@ import java.util.SortedMap;
 
 /**
  * {@code numafit review -o json}: {@code fits}, {@code pending} [{pod, workload, reason}],
- * {@code spanning}, {@code utilization} {before, after}, {@code scaleDown}, {@code drain} and the
- * rest, keys sorted (schema in docs/review.md). Integers: cpu in millicores, others in bytes or
+ * {@code spanning}, {@code utilization} {before, after}, {@code scaleDown}, {@code drain},
+ * {@code fill} {before, after: [{node, pods, daemonSets, allocatable}]} and the rest, keys sorted (schema in docs/review.md). Integers: cpu in millicores, others in bytes or
  * counts; fractions with 4 decimals.
  */
 public final class ReviewJsonWriter implements ReportWriter<Review> {
@@ -93,6 +94,10 @@ public final class ReviewJsonWriter implements ReportWriter<Review> {
     } else {
       root.put("hostFailures", null);
     }
+    Map<String, Object> fill = JsonSupport.object();
+    fill.put("before", fill(r.fillBefore()));
+    fill.put("after", fill(r.fillAfter()));
+    root.put("fill", fill);
     root.put("missing", r.warnings().stream().filter(w -> w.startsWith(NOT_READ))
         .map(w -> w.substring(NOT_READ.length())).toList());
     root.put("warnings", r.warnings());
@@ -106,6 +111,19 @@ public final class ReviewJsonWriter implements ReportWriter<Review> {
       m.put("pod", p.pod());
       m.put("workload", p.workload());
       m.put("reason", p.reason());
+      out.add(m);
+    }
+    return out;
+  }
+
+  private static List<Object> fill(List<NodeFill> nodes) {
+    List<Object> out = new ArrayList<>();
+    for (NodeFill f : nodes) {
+      Map<String, Object> m = JsonSupport.object();
+      m.put("node", f.node());
+      m.put("pods", JsonSupport.resources(f.pods()));
+      m.put("daemonSets", JsonSupport.resources(f.daemonSets()));
+      m.put("allocatable", JsonSupport.resources(f.allocatable()));
       out.add(m);
     }
     return out;

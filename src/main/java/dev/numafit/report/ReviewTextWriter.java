@@ -2,6 +2,7 @@ package dev.numafit.report;
 
 import dev.numafit.review.DrainPlan;
 import dev.numafit.review.HostFailureCheck;
+import dev.numafit.review.NodeFill;
 import dev.numafit.review.PendingPod;
 import dev.numafit.review.Removal;
 import dev.numafit.review.Review;
@@ -76,6 +77,10 @@ public final class ReviewTextWriter implements ReportWriter<Review> {
     }
     table(b, new String[] {"resource", "before", "after"}, util);
     b.append('\n');
+    if (markdown) {
+      fill(b, "Node fill today", r.fillBefore());
+      fill(b, "Node fill after the resize", r.fillAfter());
+    }
 
     heading(b, 2, "Pending after the resize");
     if (r.pending().isEmpty()) {
@@ -153,6 +158,56 @@ public final class ReviewTextWriter implements ReportWriter<Review> {
     }
     line(b, TextSupport.CAUTION);
     return b.toString();
+  }
+
+  /**
+   * Markdown only: per node, DaemonSet pods + other pods / allocatable (fill) for cpu, memory and
+   * pods, as the HTML report's fill table; above {@link WorkerFill#HISTOGRAM_ABOVE} nodes, nodes
+   * counted by fill in steps of 10% instead.
+   */
+  private void fill(StringBuilder b, String title, List<NodeFill> nodes) {
+    if (nodes.isEmpty()) {
+      return;
+    }
+    heading(b, 2, title + " (DaemonSets + other pods / allocatable)");
+    List<WorkerFill> fills = new ArrayList<>();
+    for (NodeFill f : nodes) {
+      fills.add(new WorkerFill(f.node(), f.pods(), f.daemonSets(), f.allocatable()));
+    }
+    List<String> head = new ArrayList<>();
+    List<String[]> rows = new ArrayList<>();
+    if (fills.size() > WorkerFill.HISTOGRAM_ABOVE) {
+      head.add("fill");
+      head.addAll(WorkerFill.SHOWN);
+      List<int[]> counts = new ArrayList<>();
+      WorkerFill.SHOWN.forEach(res -> counts.add(WorkerFill.histogram(fills, res)));
+      for (int k = 0; k < 10; k++) {
+        String[] row = new String[1 + counts.size()];
+        row[0] = k * 10 + "–" + (k + 1) * 10 + "%";
+        for (int c = 0; c < counts.size(); c++) {
+          row[c + 1] = Integer.toString(counts.get(c)[k]);
+        }
+        rows.add(row);
+      }
+      line(b, fills.size() + " nodes counted by fill:");
+    } else {
+      head.add("node");
+      head.addAll(WorkerFill.SHOWN);
+      for (WorkerFill f : fills) {
+        String[] row = new String[1 + WorkerFill.SHOWN.size()];
+        row[0] = f.worker();
+        for (int c = 0; c < WorkerFill.SHOWN.size(); c++) {
+          String res = WorkerFill.SHOWN.get(c);
+          row[c + 1] = Units.amount(res, f.everyWorker().get(res)) + " + "
+              + Units.amount(res, f.packed().get(res)) + " / "
+              + Units.amount(res, f.allocatable().get(res)) + " ("
+              + Units.percent(f.fraction(res)) + ")";
+        }
+        rows.add(row);
+      }
+    }
+    table(b, head.toArray(String[]::new), rows);
+    b.append('\n');
   }
 
   private static String verdict(Review r) {

@@ -208,6 +208,34 @@ final class PoolState {
     return out;
   }
 
+  /** Per live node, in node order: its pods' requests, DaemonSet pods apart, and allocatable. */
+  List<NodeFill> fill() {
+    List<NodeFill> out = new ArrayList<>();
+    for (Node n : nodes) {
+      if (n.removed) {
+        continue;
+      }
+      long[] pods = new long[resources.length];
+      long[] daemons = new long[resources.length];
+      for (PodItem p : n.pods) {
+        long[] into = p.daemon() ? daemons : pods;
+        for (int i = 0; i < resources.length; i++) {
+          into[i] += p.req()[i];
+        }
+      }
+      out.add(new NodeFill(n.name, resources(pods), resources(daemons), resources(n.alloc)));
+    }
+    return out;
+  }
+
+  private Resources resources(long[] v) {
+    SortedMap<String, Long> m = new TreeMap<>();
+    for (int i = 0; i < resources.length; i++) {
+      m.put(i == podsIndex() ? Resources.PODS : resources[i], v[i]);
+    }
+    return Resources.of(m);
+  }
+
   /** Size of a pod for ordering: its largest share of a reference node's allocatable. */
   double size(PodItem p, long[] ref) {
     double s = 0;

@@ -30,6 +30,8 @@ import java.util.SortedMap;
  * @param hostFailures the host-failure check, when asked for
  * @param podsConsidered pods the review placed (without DaemonSet pods)
  * @param warnings what the reader or the review could not count, first the missing types
+ * @param fillBefore today's pool node by node (in name order)
+ * @param fillAfter the pool after the resize node by node, before any host-failure check
  */
 public record Review(
     String pool,
@@ -51,7 +53,9 @@ public record Review(
     Optional<HostFailureCheck> hostFailures,
     int podsConsidered,
     Resources roomPerNode,
-    List<String> warnings) {
+    List<String> warnings,
+    List<NodeFill> fillBefore,
+    List<NodeFill> fillAfter) {
   public Review {
     Objects.requireNonNull(pool, "pool");
     Objects.requireNonNull(from, "from");
@@ -67,5 +71,34 @@ public record Review(
     Objects.requireNonNull(hostFailures, "hostFailures");
     Objects.requireNonNull(roomPerNode, "roomPerNode");
     warnings = List.copyOf(warnings);
+    fillBefore = List.copyOf(fillBefore);
+    fillAfter = List.copyOf(fillAfter);
+  }
+
+  /** A review without the node-by-node fill (reports then draw no fill pictures). */
+  public Review(
+      String pool,
+      DemandSource from,
+      int nodesBefore,
+      int nodesAfter,
+      Optional<String> shapeAfter,
+      Optional<String> hostProfile,
+      boolean fits,
+      List<PendingPod> pending,
+      List<SpanningNode> spanning,
+      SortedMap<String, Double> utilizationBefore,
+      SortedMap<String, Double> utilizationAfter,
+      List<Removal> removals,
+      DrainPlan drain,
+      OptionalInt nodesNeeded,
+      OptionalInt lowerBound,
+      List<String> tooLarge,
+      Optional<HostFailureCheck> hostFailures,
+      int podsConsidered,
+      Resources roomPerNode,
+      List<String> warnings) {
+    this(pool, from, nodesBefore, nodesAfter, shapeAfter, hostProfile, fits, pending, spanning,
+        utilizationBefore, utilizationAfter, removals, drain, nodesNeeded, lowerBound, tooLarge,
+        hostFailures, podsConsidered, roomPerNode, warnings, List.of(), List.of());
   }
 }

@@ -95,6 +95,7 @@ public final class Reviewer {
       }
     }
     SortedMap<String, Double> utilBefore = today.utilization();
+    List<NodeFill> fillBefore = today.fill();
     NodeRecord template = template(pool);
     Map<String, String> commonLabels = commonLabels(pool);
     List<Taint> commonTaints = commonTaints(pool);
@@ -154,6 +155,7 @@ public final class Reviewer {
       pending.add(new PendingPod(p.id(), p.workload(), state.why(p)));
     }
     SortedMap<String, Double> utilAfter = state.utilization();
+    List<NodeFill> fillAfter = state.fill();
 
     // Nodes of the after-shape the same pods need, packed tight by the plan's packer.
     long[] room = state.vector(newAlloc, false);
@@ -194,7 +196,7 @@ public final class Reviewer {
     return new Review(r.pool(), r.from(), before, after, r.shape().map(NodeShape::label),
         r.hostProfile(), fits, pending, spanning, utilBefore, utilAfter, removals, drain, needed,
         lower, new ArrayList<>(tooLarge), hostCheck, considered.size(), Resources.of(roomMap),
-        warnings);
+        warnings, fillBefore, fillAfter);
   }
 
   /** Resource order: every resource the pool allocates or a pod requests, then {@code pods}. */

@@ -145,4 +145,71 @@ class BrowserIT {
     assertTrue(bytes.length > 50_000, "screenshot only " + bytes.length + " bytes");
     assertFalse(load.console().stream().anyMatch(l -> l.contains("Failed to load")));
   }
+  @Test
+  void review_inChromium_noConsoleMessages_hostDrawn_figuresEqualJson_screenshot(@TempDir Path tmp)
+      throws Exception {
+    // The invented example snapshot, reviewed down to five nodes with the two-socket profile.
+    List<String> review = List.of("review", "--snapshot", "examples/ticket-office-cluster.json",
+        "--pool", "pool=general", "--nodes", "5", "--host-profile", HtmlRuns.TWO_SOCKET);
+    Path html = tmp.resolve("review.html");
+    List<String> args = new ArrayList<>(review);
+    args.addAll(List.of("-o", "html", "--out", html.toString()));
+    JarRun written = JarRun.of(args.toArray(String[]::new));
+    assertEquals(0, written.code(), written.err());
+    List<String> jsonArgs = new ArrayList<>(review);
+    jsonArgs.addAll(List.of("-o", "json"));
+    JarRun json = JarRun.of(jsonArgs.toArray(String[]::new));
+    assertEquals(0, json.code(), json.err());
+
+    Chromium.Load load = chromium.dumpDom(html);
+    assertEquals(List.of(), load.console());
+    Document dom = Jsoup.parse(load.dom());
+    assertEquals(0, dom.select("script").size());
+    for (String id : List.of("summary", "proposal", "fill", "findings", "topology")) {
+      assertEquals(1, dom.select("section#" + id).size(), id);
+    }
+    // two-socket-one-node-per-socket.yaml: two NUMA nodes, one one-node worker on each.
+    Elements svg = dom.select("#topology svg.topology");
+    assertEquals(1, svg.size());
+    assertEquals(2, svg.select("g.numa-node").size());
+    assertEquals(2, svg.select("g.worker").size());
+    JsonNode doc = new JsonMapper().readTree(json.out());
+    assertEquals(doc.get("fill").get("before").size(),
+        dom.select("svg[aria-labelledby^=fill-before] g.worker-fill").size());
+    assertTrue(HtmlRuns.assertFiguresEqualJson(dom, json.out()) > 60);
+
+    Path png = tmp.resolve("review.png");
+    Chromium.Load shot = chromium.screenshot(html, png, 1000, 1400);
+    assertEquals(List.of(), shot.console());
+    byte[] bytes = Files.readAllBytes(png);
+    // PNG signature (ISO/IEC 15948): 89 50 4E 47 0D 0A 1A 0A.
+    assertEquals((byte) 0x89, bytes[0]);
+    assertEquals("PNG", new String(bytes, 1, 3, StandardCharsets.US_ASCII));
+    assertTrue(bytes.length > 50_000, "screenshot only " + bytes.length + " bytes");
+  }
+
+  @Test
+  void reviewWithMarkupInNames_inChromium_staysText(@TempDir Path tmp) throws Exception {
+    String evil = "<script>alert(1)</script>";
+    Path snapshot = tmp.resolve("evil.json");
+    Files.writeString(snapshot, "{\"schemaVersion\":1,\"kind\":\"ClusterSnapshot\",\n"
+        + "\"server\":\"https://192.0.2.10:6443\",\"namespace\":null,\"missing\":[],"
+        + "\"warnings\":[],\n\"nodes\":[\n"
+        + "{\"name\":\"" + evil + "\",\"capacity\":{\"cpu\":4000,\"memory\":17179869184,"
+        + "\"pods\":110},\"allocatable\":{\"cpu\":4000,\"memory\":17179869184,\"pods\":110},"
+        + "\"labels\":{\"pool\":\"general\"},\"taints\":[],\"unschedulable\":false}\n],\n"
+        + "\"budgets\":[],\n\"workloads\":[],\n\"pods\":[\n"
+        + "{\"namespace\":\"demo\",\"name\":\"" + evil + "\",\"workload\":\"demo/Deployment/"
+        + evil + "\",\"node\":\"" + evil + "\",\"phase\":\"Running\",\"requests\":{\"cpu\":"
+        + "1000,\"memory\":1073741824}}\n]\n}\n", StandardCharsets.UTF_8);
+    Path html = tmp.resolve("evil-review.html");
+    JarRun r = JarRun.of("review", "--snapshot", snapshot.toString(), "--pool", "pool=general",
+        "-o", "html", "--out", html.toString());
+    assertEquals(0, r.code(), r.err());
+    Chromium.Load load = chromium.dumpDom(html);
+    assertEquals(List.of(), load.console());
+    Document dom = Jsoup.parse(load.dom());
+    assertEquals(0, dom.select("script").size());
+    assertTrue(dom.select("table.fill-table").text().contains(evil), load.dom());
+  }
 }

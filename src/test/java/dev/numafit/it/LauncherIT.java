@@ -106,6 +106,27 @@ class LauncherIT {
         ExamplesIT.TWO_SOCKET).out(), piped[1]);
   }
 
+  @Test
+  void launcher_stderrATerminal_progressThere_stdoutSameAsWithout(@TempDir Path tmp)
+      throws Exception {
+    Path script = Path.of("/usr/bin/script");
+    assumeTrue(Files.isExecutable(script), "script(1) not installed");
+    // Standard output to a file, standard error left on the pseudo-terminal: [ -t 2 ] is true.
+    Path stdout = tmp.resolve("plan.json");
+    String args = "plan -f " + ExamplesIT.TICKETS + " --host-profile " + ExamplesIT.TWO_SOCKET
+        + " --host-failures 1 -o json";
+    String terminal = onTerminal("bash numafit " + args + " >" + stdout, "1");
+    assertTrue(terminal.contains("\rfailure sets checked: "), terminal);
+    // NO_COLOR: the line carries no escape sequence.
+    assertFalse(terminal.contains("\u001b"), terminal);
+    // The report is the same bytes as the jar's own run without a terminal.
+    assertEquals(JarRun.of(args.split(" ")).out(),
+        Files.readString(stdout, StandardCharsets.UTF_8));
+    // Through a pipe nothing of it shows.
+    String[] piped = run(JarRun.PROJECT.resolve("numafit"), args.split(" "));
+    assertFalse(piped[2].contains("failure sets checked"), piped[2]);
+  }
+
   private static String onTerminal(String command, String noColor) throws Exception {
     ProcessBuilder pb = new ProcessBuilder("script", "-q", "-e", "-c", command, "/dev/null")
         .directory(JarRun.PROJECT.toFile());

@@ -28,4 +28,26 @@ class ReportFormatsIT {
     assertEquals(0, r.code(), r.err());
     r.matchesGolden("plan-tickets-compare-markdown");
   }
+
+  /** A review of the invented example snapshot (examples/ticket-office-cluster.json). */
+  private static final String[] REVIEW = {"review", "--snapshot",
+      "examples/ticket-office-cluster.json", "--pool", "pool=general", "--nodes", "5",
+      "--host-profile", ExamplesIT.TWO_SOCKET};
+
+  @Test
+  void review_text_exampleSnapshot_matchesGolden() {
+    JarRun r = JarRun.of(REVIEW);
+    assertEquals(0, r.code(), r.err());
+    r.matchesGolden("review-tickets-text");
+  }
+
+  @Test
+  void review_markdown_exampleSnapshot_matchesGolden() {
+    String[] args = java.util.Arrays.copyOf(REVIEW, REVIEW.length + 2);
+    args[REVIEW.length] = "-o";
+    args[REVIEW.length + 1] = "markdown";
+    JarRun r = JarRun.of(args);
+    assertEquals(0, r.code(), r.err());
+    r.matchesGolden("review-tickets-markdown");
+  }
 }

@@ -51,15 +51,25 @@ final class Charts {
    * striped) then the packed pods (solid), against allocatable (the outlined full bar).
    */
   static String fill(String id, List<WorkerFill> fills) {
+    return fill(id, fills, "Worker fill",
+        fills.size() + " workers; per worker the cpu, memory and pods requested against"
+            + " allocatable, DaemonSets and per-worker demand shown apart from packed pods.",
+        "DaemonSets and per-worker demand", "packed pods");
+  }
+
+  /**
+   * {@link #fill(String, List)} with the words of another report: the picture's title and
+   * description, and the legend of the striped and the solid segment.
+   */
+  static String fill(String id, List<WorkerFill> fills, String title, String desc,
+      String stripedLegend, String solidLegend) {
     double labelW = 120;
     double barX = labelW + 70;
     double barW = WIDTH - barX - 90;
     double bar = 12;
     double rowH = 3 * (bar + 3) + 10;
     double height = 10 + fills.size() * rowH + 30;
-    StringBuilder sb = new StringBuilder(open("fill", id, height, "Worker fill",
-        fills.size() + " workers; per worker the cpu, memory and pods requested against"
-            + " allocatable, DaemonSets and per-worker demand shown apart from packed pods."));
+    StringBuilder sb = new StringBuilder(open("fill", id, height, title, desc));
     double y = 10;
     for (WorkerFill f : fills) {
       sb.append("<g class=\"worker-fill\" data-worker=\"").append(esc(f.worker())).append("\">");
@@ -82,10 +92,10 @@ final class Charts {
     }
     double lx = 4;
     rect(sb, lx, y, 22, 12, "daemon", "url(#" + id + "-ds)");
-    text(sb, lx + 28, y + 10, "label small", "DaemonSets and per-worker demand");
+    text(sb, lx + 28, y + 10, "label small", stripedLegend);
     lx += 260;
     rect(sb, lx, y, 22, 12, "packed", null);
-    text(sb, lx + 28, y + 10, "label small", "packed pods");
+    text(sb, lx + 28, y + 10, "label small", solidLegend);
     lx += 130;
     rect(sb, lx, y, 22, 12, "alloc", null);
     text(sb, lx + 28, y + 10, "label small", "allocatable (full bar)");
@@ -95,6 +105,11 @@ final class Charts {
 
   /** Workers counted per 10% fill bucket, three bars per bucket (cpu, memory, pods). */
   static String histogram(String id, List<WorkerFill> fills) {
+    return histogram(id, fills, "Workers by fill", "workers");
+  }
+
+  /** {@link #histogram(String, List)} with another title and word for what is counted. */
+  static String histogram(String id, List<WorkerFill> fills, String title, String rows) {
     int[][] counts = new int[WorkerFill.SHOWN.size()][];
     int max = 1;
     for (int k = 0; k < counts.length; k++) {
@@ -109,10 +124,9 @@ final class Charts {
     double slot = (WIDTH - left - 20) / 10.0;
     double bw = (slot - 14) / 3;
     double height = top + plotH + 60;
-    StringBuilder sb = new StringBuilder(open("fill-histogram", id, height,
-        "Workers by fill",
-        fills.size() + " workers counted by how full they are, in steps of 10% of allocatable,"
-            + " for cpu, memory and pods."));
+    StringBuilder sb = new StringBuilder(open("fill-histogram", id, height, title,
+        fills.size() + " " + rows + " counted by how full they are, in steps of 10% of"
+            + " allocatable, for cpu, memory and pods."));
     String[] fillsOf = {null, "url(#" + id + "-dots)", "url(#" + id + "-ds)"};
     String[] classes = {"packed", "series2", "daemon"};
     for (int b = 0; b < 10; b++) {
@@ -124,7 +138,7 @@ final class Charts {
         sb.append("<g class=\"bucket\" data-resource=\"").append(WorkerFill.SHOWN.get(k))
             .append("\" data-bucket=\"").append(b).append("\"><title>")
             .append(esc(WorkerFill.SHOWN.get(k) + " " + b * 10 + "–" + (b + 1) * 10 + "%: " + c
-                + " workers"))
+                + " " + rows))
             .append("</title>");
         rect(sb, x, top + plotH - h, bw - 1, h, classes[k], fillsOf[k]);
         text(sb, x + bw / 2, top + plotH - h - 3, "label tiny mid", Integer.toString(c));
@@ -150,15 +164,20 @@ final class Charts {
   record Panel(String title, List<Double> values, List<String> shown) {}
 
   static String comparison(String id, List<String> profiles, List<Panel> panels) {
+    return comparison(id, profiles, panels, "Host profiles compared",
+        profiles.size() + " host profiles side by side: hosts and workers needed, utilization per"
+            + " resource and relative cost.");
+  }
+
+  /** Panels of horizontal bars, one bar per entry of {@code profiles}, with a title and desc. */
+  static String comparison(String id, List<String> profiles, List<Panel> panels, String title,
+      String desc) {
     double labelW = 200;
     double barW = WIDTH - labelW - 120;
     double bar = 14;
     double panelH = 24 + profiles.size() * (bar + 6) + 10;
     double height = panels.size() * panelH + 10;
-    StringBuilder sb = new StringBuilder(open("comparison", id, height,
-        "Host profiles compared",
-        profiles.size() + " host profiles side by side: hosts and workers needed, utilization per"
-            + " resource and relative cost."));
+    StringBuilder sb = new StringBuilder(open("comparison", id, height, title, desc));
     double y = 10;
     for (Panel p : panels) {
       sb.append("<g class=\"panel\">");

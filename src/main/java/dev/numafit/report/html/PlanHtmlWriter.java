@@ -23,6 +23,7 @@ import dev.numafit.report.Units;
 import dev.numafit.report.WorkerFill;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.ShapeDeriver;
+import dev.numafit.shape.WorkerShape;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.ArrayList;
@@ -219,7 +220,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
   }
 
   /** A fraction as the JSON report writes it: 4 decimals, half up. */
-  private static String fraction(double v) {
+  static String fraction(double v) {
     return BigDecimal.valueOf(v).setScale(4, RoundingMode.HALF_UP).toPlainString();
   }
 
@@ -308,13 +309,21 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
   }
 
   private static void topology(StringBuilder sb, PlanHost h, Plan p, int i) {
+    topology(sb, h, p.worker(), "p" + i + "-topo");
+  }
+
+  /**
+   * The host's picture with {@code shape}'s worker VMs placed as {@code h.layout()} says, the
+   * table of its NUMA nodes beside it, and the distance matrix when the profile has one.
+   */
+  static void topology(StringBuilder sb, PlanHost h, WorkerShape shape, String id) {
     HostProfile hp = h.profile();
     sb.append("<h3>Host topology</h3>\n<p>")
         .append(esc(TopologyWords.summary(hp)))
         .append("</p>\n<figure>")
-        .append(TopologySvg.draw("p" + i + "-topo", h, p))
+        .append(TopologySvg.draw(id, h, shape))
         .append("<figcaption>")
-        .append(esc(TopologySvg.describe(hp, h.layout(), p.worker())))
+        .append(esc(TopologySvg.describe(hp, h.layout(), shape)))
         .append("</figcaption></figure>\n");
     HostFacts facts = HostFacts.of(hp);
     int[] reserved = ShapeDeriver.reservedCoresPerNode(hp);

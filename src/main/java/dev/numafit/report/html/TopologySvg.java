@@ -64,9 +64,13 @@ final class TopologySvg {
   }
 
   static String draw(String id, PlanHost host, Plan plan) {
+    return draw(id, host, plan.worker());
+  }
+
+  /** {@code host} with its layout's worker VMs, each of {@code shape}. */
+  static String draw(String id, PlanHost host, WorkerShape shape) {
     HostProfile p = host.profile();
     HostLayout layout = host.layout();
-    WorkerShape shape = plan.worker();
     int[] reservedCores = ShapeDeriver.reservedCoresPerNode(p);
     int nodeCount = p.nodes().size();
     double hvShare = nodeCount == 0 ? 0 : (double) p.hypervisorMemoryBytes() / nodeCount;
