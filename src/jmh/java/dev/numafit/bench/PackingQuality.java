@@ -100,6 +100,7 @@ public final class PackingQuality {
         "set", "half", "inst", "reach", "ffd", "gap", "ffd gap", "imp", "ms", "ffd ms", "steps");
     int planChecked = 0;
     int planEqual = 0;
+    int planDimsChanged = 0;
     for (Path index : indexes) {
       if (!Files.isRegularFile(index)) {
         System.out.println("missing " + index + ", skipped");
@@ -158,12 +159,18 @@ public final class PackingQuality {
           s.ffdGapSum += (ffd.bins() - known) / (double) known;
           if (planEvery > 0 && r % planEvery == 0) {
             int viaPlan = viaPlan(in, budget);
+            int direct = new VectorPacker(budget).pack(asPlanSees(in), planCapacity(in)).bins();
             planChecked++;
-            if (viaPlan == p.bins()) {
+            if (viaPlan == direct) {
               planEqual++;
             } else {
               System.out.println("PLAN DIFFERS " + c[fileCol] + ": plan " + viaPlan
-                  + " workers, packer " + p.bins() + " bins");
+                  + " workers, packer on the same dimensions " + direct + " bins");
+            }
+            if (direct != p.bins()) {
+              planDimsChanged++;
+              System.out.println("PODS COLUMN CHANGES " + c[fileCol] + ": " + p.bins() + " bins"
+                  + " without, " + direct + " with the non-binding pods limit");
             }
           }
         }
@@ -176,7 +183,9 @@ public final class PackingQuality {
         + " best-known (unproven) value; ms: packer time; steps: packer steps");
     if (planEvery > 0) {
       System.out.println("plan path: " + planEqual + " of " + planChecked
-          + " instances gave the same worker count as the packer");
+          + " instances gave the same worker count as the packer on the plan's dimensions"
+          + " (cpu, memory, pods, third); the pods column changed the count on "
+          + planDimsChanged);
     }
   }
 
@@ -247,6 +256,28 @@ public final class PackingQuality {
         }
       }
     }
+  }
+
+  /**
+   * The instance as the plan hands it to the packer: its resources in name order (cpu, memory,
+   * pods, then the third dimension's name), each pod counting 1 against a pods limit of n.
+   */
+  private static long[][] asPlanSees(Instance in) {
+    int d = in.capacity.length;
+    long[][] rows = new long[in.items.length][];
+    for (int i = 0; i < rows.length; i++) {
+      long[] v = in.items[i];
+      rows[i] = new long[] {v[0] * 1000, d > 1 ? v[1] : 0, 1, d > 2 ? v[2] : 0};
+    }
+    return rows;
+  }
+
+  private static long[] planCapacity(Instance in) {
+    int d = in.capacity.length;
+    return new long[] {
+      in.capacity[0] * 1000, d > 1 ? in.capacity[1] : 1L << 30, in.items.length,
+      d > 2 ? in.capacity[2] : 0
+    };
   }
 
   private static boolean feasible(Packing p, Instance in) {

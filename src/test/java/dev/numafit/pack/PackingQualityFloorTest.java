@@ -1,6 +1,5 @@
 package dev.numafit.pack;
 
-import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -67,22 +66,6 @@ class PackingQualityFloorTest {
     Packing p = new VectorPacker(300_000).pack(b.items(), b.capacity());
     assertValid(p, b);
     assertTrue(p.steps() >= 300_000 && p.steps() < 400_000, "steps " + p.steps());
-  }
-
-  @Test
-  void pack_podsLimitThatCannotBind_sameResultAsWithout() throws Exception {
-    // A pods limit of at least the number of items never binds (all items fit one bin there),
-    // so it must not change the packing: this is how `plan --max-pods n` runs these instances.
-    BenchInstance b = BenchInstance.load("Falkenauer_u120_00.txt");
-    long[][] withPods = new long[b.items().length][];
-    for (int i = 0; i < withPods.length; i++) {
-      withPods[i] = new long[] {b.items()[i][0], 1};
-    }
-    long[] capacity = {b.capacity()[0], withPods.length};
-    Packing plain = new VectorPacker().pack(b.items(), b.capacity());
-    Packing pods = new VectorPacker().pack(withPods, capacity);
-    assertEquals(48, pods.bins()); // proven optimum, BPPLib.jl bounds (SOURCE.md)
-    assertArrayEquals(plain.binOfItem(), pods.binOfItem());
   }
 
   /** Every item in exactly one bin, no bin empty, no bin over capacity in any dimension. */
