@@ -2,6 +2,8 @@ package dev.numafit.bench;
 
 import dev.numafit.pack.RulePacker;
 import dev.numafit.pack.RulePacker.Domain;
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -23,8 +25,10 @@ import org.openjdk.jmh.annotations.Warmup;
  * Packing the synthetic fleet ({@link SyntheticFleet}) under placement rules, at 10,000, 50,000
  * and 150,000 pods (the first Deployments of the fleet up to that many pods). Every Deployment
  * has a rule, in turn: spread over workers (maxSkew 1, DoNotSchedule), required anti-affinity on
- * the worker, spread over physical hosts (maxSkew 1). Eight workers per host, three zones. Run:
- * {@code bench/run-jmh.sh RulePackerBenchmark}, or {@code main} for one timed pass per size.
+ * the worker, spread over physical hosts (maxSkew 1). Eight workers per host, three zones. Also
+ * the same pods without rules ({@code packPlain}) and the failure check for losing any one host
+ * ({@code hostFailures1}, {@code --host-failures 1}) on the rule packer's layout. Run: {@code
+ * bench/run-jmh.sh RulePackerBenchmark}, or {@code main} for timed passes per size.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -39,10 +43,23 @@ public class RulePackerBenchmark {
   int pods;
 
   List<RulePacker.Group> groups;
+  List<RulePacker.Group> plain;
+  RulePacker.Result layout;
 
   @Setup
   public void setUp() {
     groups = groups(pods);
+    plain = plain(groups);
+    layout = RulePacker.pack(groups, PackerBenchmark.ROOM, TOPOLOGY);
+  }
+
+  /** The same pods without rules. */
+  static List<RulePacker.Group> plain(List<RulePacker.Group> groups) {
+    List<RulePacker.Group> out = new ArrayList<>();
+    for (RulePacker.Group g : groups) {
+      out.add(RulePacker.Group.plain(g.demand(), g.count()));
+    }
+    return out;
   }
 
   /** The fleet's first Deployments up to {@code pods} pods, each with its rule. */
@@ -73,28 +90,66 @@ public class RulePackerBenchmark {
     return RulePacker.pack(groups, PackerBenchmark.ROOM, TOPOLOGY);
   }
 
-  /** One timed pass per size after two warm-up passes (a quick look, not a measurement). */
+  @Benchmark
+  public RulePacker.Result packPlain() {
+    return RulePacker.pack(plain, PackerBenchmark.ROOM, TOPOLOGY);
+  }
+
+  @Benchmark
+  public RulePacker.FailureResult hostFailures1() {
+    return RulePacker.hostsToSurvive(groups, PackerBenchmark.ROOM, TOPOLOGY, layout, 1, false, 4);
+  }
+
+  /**
+   * Per size: the best of 5 timed passes after 2 untimed ones, for packing under rules, packing
+   * without rules and the failure check for one host (a quick look beside JMH; wall-clock time and
+   * the load average of the machine are printed with it).
+   */
   public static void main(String[] args) {
     for (int n : new int[] {10_000, 50_000, 150_000}) {
       List<RulePacker.Group> g = groups(n);
-      RulePacker.Result r = null;
-      long best = Long.MAX_VALUE;
-      for (int rep = 0; rep < 3; rep++) {
-        long t0 = System.nanoTime();
-        r = RulePacker.pack(g, PackerBenchmark.ROOM, TOPOLOGY);
-        best = Math.min(best, System.nanoTime() - t0);
-      }
+      List<RulePacker.Group> p = plain(g);
+      RulePacker.Result[] r = new RulePacker.Result[2];
+      RulePacker.FailureResult[] f = new RulePacker.FailureResult[1];
+      long[] rules = best(() -> r[0] = RulePacker.pack(g, PackerBenchmark.ROOM, TOPOLOGY));
+      long[] none = best(() -> r[1] = RulePacker.pack(p, PackerBenchmark.ROOM, TOPOLOGY));
+      long[] fail =
+          best(
+              () ->
+                  f[0] =
+                      RulePacker.hostsToSurvive(
+                          g, PackerBenchmark.ROOM, TOPOLOGY, r[0], 1, false, 4));
       System.out.printf(
-          "%d pods: %d workers, %d hosts, %d unplaced, %d ms (best of 3), violations %d%n",
-          n, r.bins(), r.hosts(), r.unplaced().size(), best / 1_000_000,
-          RulePacker.violations(g, PackerBenchmark.ROOM, TOPOLOGY, r).size());
-      if (n <= 50_000) {
-        long t0 = System.nanoTime();
-        RulePacker.FailureResult f =
-            RulePacker.hostsToSurvive(g, PackerBenchmark.ROOM, TOPOLOGY, r, 1, false, 4);
-        System.out.printf(
-            "  --host-failures 1: %s, %d ms (one pass)%n", f, (System.nanoTime() - t0) / 1_000_000);
+          "%d pods: rules %d workers, %d hosts, %d unplaced, violations %d, %d ms (cpu %d ms);"
+              + " no rules %d workers, %d ms (cpu %d ms); --host-failures 1: %d hosts"
+              + " (survives %b), %d ms (cpu %d ms); load average %.1f%n",
+          n, r[0].bins(), r[0].hosts(), r[0].unplaced().size(),
+          RulePacker.violations(g, PackerBenchmark.ROOM, TOPOLOGY, r[0]).size(), rules[0],
+          rules[1], r[1].bins(), none[0], none[1], f[0].hosts(), f[0].survives(), fail[0],
+          fail[1],
+          ManagementFactory.getOperatingSystemMXBean()
+              .getSystemLoadAverage());
+    }
+  }
+
+  /**
+   * Best of 5 timed runs after 2 untimed ones, milliseconds: wall clock, and the CPU time of the
+   * running thread in that run (less disturbed by other work on a shared machine).
+   */
+  private static long[] best(Runnable run) {
+    ThreadMXBean mx = ManagementFactory.getThreadMXBean();
+    long best = Long.MAX_VALUE;
+    long cpu = 0;
+    for (int rep = 0; rep < 7; rep++) {
+      long c0 = mx.getCurrentThreadCpuTime();
+      long t0 = System.nanoTime();
+      run.run();
+      long t = System.nanoTime() - t0;
+      if (rep >= 2 && t < best) {
+        best = t;
+        cpu = mx.getCurrentThreadCpuTime() - c0;
       }
     }
+    return new long[] {best / 1_000_000, cpu / 1_000_000};
   }
 }

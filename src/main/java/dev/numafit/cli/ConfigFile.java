@@ -30,7 +30,7 @@ final class ConfigFile {
 
   private static final Set<String> PATH_OPTIONS =
       Set.of("filename", "host-profile", "kubelet-config", "out", "baseline", "snapshot",
-          "kubeconfig");
+          "kubeconfig", "pools");
   private static final Set<String> NOT_ALLOWED = Set.of("config", "help", "version");
 
   private ConfigFile() {}

@@ -32,6 +32,8 @@ import picocli.CommandLine.ParentCommand;
       "  render-manifests | numafit plan -f - --worker cpu=8,memory=32Gi",
       "  numafit plan -f manifests/ --host-profile a.yaml --host-profile b.yaml \\",
       "      --host-failures 1 --max-utilization 80 --kubelet-config out/",
+      "  numafit plan -f manifests-examples/cold-chain/manifests/ \\",
+      "      --pools manifests-examples/cold-chain/pools.yaml",
       "",
       "Exit codes: 0 done (oversize pods are listed, not an error), 2 usage or input"
           + " error, 3 internal error."
@@ -54,6 +56,15 @@ public final class PlanCommand implements Callable<Integer> {
       paramLabel = "FILE",
       description = "Host profile (see docs/host-profile.md). Repeatable: one plan each, compared.")
   List<Path> hostProfiles = new ArrayList<>();
+
+  @Option(
+      names = "--pools",
+      paramLabel = "FILE",
+      description =
+          "Worker pools with labels, taints and shapes (see docs/pools.md): workloads go to the"
+              + " first pool their nodeSelector, node affinity and tolerations allow; one plan per"
+              + " pool.")
+  Path pools;
 
   @Option(
       names = "--worker",
@@ -122,8 +133,17 @@ public final class PlanCommand implements Callable<Integer> {
       paramLabel = "N",
       description =
           "Packing effort: N times the default step budget; 0 runs only the first"
-              + " first-fit-decreasing pass (default: 1). Same input and N, same plan.")
+              + " first-fit-decreasing pass (default: 1). With --exact, also N times the"
+              + " default search-node limit (2,000,000). Same input and N, same plan.")
   int effort = 1;
+
+  @Option(
+      names = "--exact",
+      description =
+          "Search for the fewest workers and prove it, or say the effort limit ran out first."
+              + " Rule-free inputs of at most 500 pods to pack only (see"
+              + " docs/how-numbers-are-computed.md).")
+  boolean exact;
 
   @Option(
       names = "--zones",

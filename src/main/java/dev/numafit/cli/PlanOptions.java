@@ -29,7 +29,11 @@ import java.util.SortedMap;
  * @param kubeletConfigDir where to write KubeletConfiguration files, when asked
  * @param out the report file, when not standard output
  * @param placementOptions --zones, --zone-failures and --spread-replicas-across
- * @param effort --effort: the packer's step budget in multiples of the default, 0..1000
+ * @param effort --effort: the packer's step budget in multiples of the default, 0..1000 (with
+ *     --exact, also the search-node limit in multiples of its default)
+ * @param pools --pools: the WorkerPools file, when given
+ * @param exact --exact: prove the minimum worker count (rule-free inputs, at most {@link
+ *     dev.numafit.plan.Planner#EXACT_MAX_PODS} pods to pack)
  */
 public record PlanOptions(
     List<String> files,
@@ -50,8 +54,11 @@ public record PlanOptions(
     ReportFormat format,
     Optional<Path> out,
     PlacementOptions placementOptions,
-    int effort) {
+    int effort,
+    Optional<Path> pools,
+    boolean exact) {
   public PlanOptions {
+    Objects.requireNonNull(pools, "pools");
     Objects.requireNonNull(placementOptions, "placementOptions");
     files = List.copyOf(files);
     hostProfiles = List.copyOf(hostProfiles);
@@ -81,8 +88,13 @@ public record PlanOptions(
     if (c.files.stream().filter("-"::equals).count() > 1) {
       problems.add("-f - (standard input) can be given only once");
     }
-    if (c.hostProfiles.isEmpty() && c.worker == null) {
+    boolean pools = c.pools != null;
+    if (c.hostProfiles.isEmpty() && c.worker == null && !pools) {
       problems.add("plan needs --host-profile or --worker");
+    }
+    if (pools && c.hostProfiles.size() > 1) {
+      problems.add("--pools takes at most one --host-profile (the pools' default); name other"
+          + " host profiles in the pools file");
     }
     Optional<Resources> worker = Optional.empty();
     if (c.worker != null) {
@@ -155,7 +167,7 @@ public record PlanOptions(
     if (c.hostFailures < 0) {
       problems.add("--host-failures must be 0 or more, got " + c.hostFailures);
     }
-    if (c.hostFailures > 0 && c.hostProfiles.isEmpty()) {
+    if (c.hostFailures > 0 && c.hostProfiles.isEmpty() && !pools) {
       problems.add("--host-failures needs --host-profile (without one, plan counts workers,"
           + " not hosts)");
     }
@@ -171,7 +183,7 @@ public record PlanOptions(
     } else if (c.zoneFailures == 1 && c.zones < 2) {
       problems.add("--zone-failures 1 needs --zones 2 or more");
     }
-    if (c.zoneFailures > 0 && c.hostProfiles.isEmpty()) {
+    if (c.zoneFailures > 0 && c.hostProfiles.isEmpty() && !pools) {
       problems.add("--zone-failures needs --host-profile (without one, plan counts workers,"
           + " not hosts)");
     }
@@ -197,7 +209,7 @@ public record PlanOptions(
       problems.add("--cpu-overcommit must be 1 or more (vCPUs per core), got "
           + c.cpuOvercommit.toPlainString());
     }
-    if (c.hostProfiles.isEmpty()
+    if (c.hostProfiles.isEmpty() && !pools
         && (c.vcpuPerThread || c.cpuOvercommit.compareTo(BigDecimal.ONE) != 0)) {
       problems.add("--vcpu-per-thread and --cpu-overcommit need --host-profile (they change how"
           + " a host's cores become vCPUs)");
@@ -225,7 +237,9 @@ public record PlanOptions(
         Optional.ofNullable(c.common.out),
         new PlacementOptions(
             c.zones, c.zoneFailures == 1 && c.zones >= 2 ? 1 : 0, spreadKey),
-        c.effort);
+        c.effort,
+        Optional.ofNullable(c.pools),
+        c.exact);
   }
 
   private static Optional<Resources> parse(

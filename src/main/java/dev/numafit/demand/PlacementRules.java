@@ -23,12 +23,15 @@ import java.util.TreeSet;
  * @param spread topology spread constraints against the workload's own pods, sorted by key
  * @param nodeSelector the pod's nodeSelector labels (kept for reporting)
  * @param notModelled human-readable notes about rules read but not enforced
+ * @param node required node affinity and tolerations, checked against worker pools ({@link
+ *     NodeFit})
  */
 public record PlacementRules(
     SortedSet<String> antiAffinityKeys,
     List<Spread> spread,
     SortedMap<String, String> nodeSelector,
-    List<String> notModelled) {
+    List<String> notModelled,
+    NodeRules node) {
 
   /**
    * The label of our own naming that every worker carries to name the physical host it runs on,
@@ -44,16 +47,26 @@ public record PlacementRules(
 
   /** No rules. */
   public static final PlacementRules NONE =
-      new PlacementRules(new TreeSet<>(), List.of(), new TreeMap<>(), List.of());
+      new PlacementRules(new TreeSet<>(), List.of(), new TreeMap<>(), List.of(), NodeRules.NONE);
 
   public PlacementRules {
+    Objects.requireNonNull(node, "node");
     antiAffinityKeys = Collections.unmodifiableSortedSet(new TreeSet<>(antiAffinityKeys));
     spread = spread.stream().sorted().toList();
     nodeSelector = Collections.unmodifiableSortedMap(new TreeMap<>(nodeSelector));
     notModelled = List.copyOf(notModelled);
   }
 
-  /** Whether any rule constrains where pods go. */
+  /** Rules without required node affinity or tolerations. */
+  public PlacementRules(
+      SortedSet<String> antiAffinityKeys,
+      List<Spread> spread,
+      SortedMap<String, String> nodeSelector,
+      List<String> notModelled) {
+    this(antiAffinityKeys, spread, nodeSelector, notModelled, NodeRules.NONE);
+  }
+
+  /** Whether any rule constrains where pods go relative to each other. */
   public boolean constrains() {
     return !antiAffinityKeys.isEmpty() || spread.stream().anyMatch(Spread::hard);
   }
@@ -62,7 +75,12 @@ public record PlacementRules(
   public PlacementRules withAntiAffinity(String key) {
     TreeSet<String> keys = new TreeSet<>(antiAffinityKeys);
     keys.add(key);
-    return new PlacementRules(keys, spread, nodeSelector, notModelled);
+    return new PlacementRules(keys, spread, nodeSelector, notModelled, node);
+  }
+
+  /** These rules with other node rules. */
+  public PlacementRules withNode(NodeRules newNode) {
+    return new PlacementRules(antiAffinityKeys, spread, nodeSelector, notModelled, newNode);
   }
 
   /**

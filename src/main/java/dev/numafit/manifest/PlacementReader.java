@@ -1,9 +1,15 @@
 package dev.numafit.manifest;
 
+import dev.numafit.demand.LabelExpression;
+import dev.numafit.demand.NodeRules;
+import dev.numafit.demand.NodeTerm;
 import dev.numafit.demand.PlacementRules;
+import dev.numafit.demand.Taint;
+import dev.numafit.demand.Toleration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.SortedMap;
 import java.util.TreeMap;
 import java.util.TreeSet;
@@ -36,7 +42,10 @@ final class PlacementReader {
             .path("requiredDuringSchedulingIgnoredDuringExecution");
     JsonNode spread = spec.path("topologySpreadConstraints");
     JsonNode selector = spec.path("nodeSelector");
-    if (!anti.isArray() && !spread.isArray() && !selector.isObject()) {
+    JsonNode nodeAffinity = spec.path("affinity").path("nodeAffinity");
+    JsonNode tolerations = spec.path("tolerations");
+    if (!anti.isArray() && !spread.isArray() && !selector.isObject() && !nodeAffinity.isObject()
+        && !tolerations.isArray()) {
       return PlacementRules.NONE;
     }
     Map<String, String> own = stringMap(labels);
@@ -73,7 +82,90 @@ final class PlacementReader {
         spreads.add(new PlacementRules.Spread(key, skew.asInt(), hard));
       }
     }
-    return new PlacementRules(antiKeys, spreads, stringMap(selector), notes);
+    NodeRules node = readNode(nodeAffinity, tolerations, notes);
+    return new PlacementRules(antiKeys, spreads, stringMap(selector), notes, node);
+  }
+
+  /**
+   * The required node affinity (terms ORed, requirements of a term ANDed) and the tolerations.
+   * Preferred node affinity is a preference the plan does not honour: noted. A requirement with
+   * an operator the API does not define makes its term match nothing, as the API server would
+   * refuse it.
+   */
+  static NodeRules readNode(JsonNode nodeAffinity, JsonNode tolerations, List<String> notes) {
+    List<NodeTerm> terms = new ArrayList<>();
+    JsonNode required =
+        nodeAffinity.path("requiredDuringSchedulingIgnoredDuringExecution").path("nodeSelectorTerms");
+    if (required.isArray()) {
+      for (JsonNode term : required) {
+        List<LabelExpression> exprs = new ArrayList<>();
+        List<String> fields = new ArrayList<>();
+        boolean broken = false;
+        for (JsonNode x : term.path("matchExpressions")) {
+          Optional<LabelExpression> e = expression(x);
+          if (e.isEmpty()) {
+            broken = true;
+          } else {
+            exprs.add(e.get());
+          }
+        }
+        for (JsonNode f : term.path("matchFields")) {
+          Optional<LabelExpression> e = expression(f);
+          if (e.isEmpty()) {
+            broken = true;
+          } else {
+            fields.add(e.get().toString());
+          }
+        }
+        // A broken term can match no node: keep it as an empty term.
+        terms.add(broken ? new NodeTerm(List.of()) : new NodeTerm(exprs, fields));
+      }
+    }
+    JsonNode preferred = nodeAffinity.path("preferredDuringSchedulingIgnoredDuringExecution");
+    if (preferred.isArray() && !preferred.isEmpty()) {
+      notes.add("preferred node affinity (" + preferred.size() + " term(s)) is a preference:"
+          + " noted, not enforced");
+    }
+    List<Toleration> tols = new ArrayList<>();
+    if (tolerations.isArray()) {
+      for (JsonNode t : tolerations) {
+        String op = text(t.get("operator"));
+        boolean exists = "Exists".equals(op);
+        if (op != null && !exists && !"Equal".equals(op)) {
+          continue;
+        }
+        String effectName = text(t.get("effect"));
+        Optional<Taint.Effect> effect = Optional.empty();
+        if (effectName != null && !effectName.isEmpty()) {
+          effect = Taint.Effect.of(effectName);
+          if (effect.isEmpty()) {
+            continue;
+          }
+        }
+        JsonNode seconds = t.get("tolerationSeconds");
+        if (effect.equals(Optional.of(Taint.Effect.NO_EXECUTE)) && seconds != null
+            && seconds.isIntegralNumber()) {
+          // The pod is evicted that many seconds after it lands: no lasting placement.
+          notes.add("toleration of " + (text(t.get("key")) == null ? "every key" : text(t.get("key")))
+              + " with tolerationSeconds " + seconds.asLong() + " does not count: the pod is"
+              + " evicted after that time");
+          continue;
+        }
+        tols.add(new Toleration(text(t.get("key")), exists, text(t.get("value")), effect));
+      }
+    }
+    return new NodeRules(terms, tols);
+  }
+
+  private static Optional<LabelExpression> expression(JsonNode x) {
+    String key = text(x.get("key"));
+    Optional<LabelExpression.Operator> op = LabelExpression.Operator.of(text(x.get("operator")));
+    if (key == null || op.isEmpty()) {
+      return Optional.empty();
+    }
+    List<String> values = new ArrayList<>();
+    x.path("values").forEach(v -> values.add(v.isString() ? v.asString() : v.toString()));
+    return Optional.of(new LabelExpression(key, op.get(), values));
   }
 
   /**

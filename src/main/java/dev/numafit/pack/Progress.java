@@ -14,7 +14,7 @@ public interface Progress {
     PACK("packing pods"),
     /** The failure-headroom check: {@code done} of {@code total} sets of failed hosts checked. */
     FAILURES("failure sets checked"),
-    /** Exact mode's search: {@code done} nodes of the search tree visited, {@code total} 0. */
+    /** Exact mode's search: {@code done} nodes of the search tree visited of the node limit. */
     EXACT("exact search, nodes searched");
 
     private final String words;

@@ -30,6 +30,8 @@ import java.util.SortedMap;
  * @param warnings diagnostics raised while planning
  * @param hostsNeededWithoutFailures hosts needed when no host or zone is lost; present only when
  *     the plan was sized for failures ({@code hostsNeeded} then includes the headroom)
+ * @param exact how the exact search ended, present only for {@code plan --exact}; then {@code
+ *     workersNeeded} is its best packing and {@code lowerBound} its bound
  */
 public record Plan(
     Optional<String> hostProfile,
@@ -48,15 +50,41 @@ public record Plan(
     List<String> unchecked,
     List<String> notes,
     List<Diagnostic> warnings,
-    OptionalInt hostsNeededWithoutFailures) {
+    OptionalInt hostsNeededWithoutFailures,
+    Optional<ExactSearch> exact) {
   public Plan {
     java.util.Objects.requireNonNull(hostsNeededWithoutFailures, "hostsNeededWithoutFailures");
+    java.util.Objects.requireNonNull(exact, "exact");
     oversize = List.copyOf(oversize);
     utilization = java.util.Collections.unmodifiableSortedMap(new java.util.TreeMap<>(utilization));
     placement = placement.map(List::copyOf);
     unchecked = List.copyOf(unchecked);
     notes = List.copyOf(notes);
     warnings = List.copyOf(warnings);
+  }
+
+  /** A plan without the exact mode. */
+  public Plan(
+      Optional<String> hostProfile,
+      WorkerShape worker,
+      Resources allocatable,
+      Resources perWorkerDemand,
+      Resources room,
+      OptionalInt workersPerHost,
+      int workersNeeded,
+      int lowerBound,
+      OptionalInt hostsNeeded,
+      List<Oversize> oversize,
+      SortedMap<String, Double> utilization,
+      String bindingResource,
+      Optional<List<WorkerPlacement>> placement,
+      List<String> unchecked,
+      List<String> notes,
+      List<Diagnostic> warnings,
+      OptionalInt hostsNeededWithoutFailures) {
+    this(hostProfile, worker, allocatable, perWorkerDemand, room, workersPerHost, workersNeeded,
+        lowerBound, hostsNeeded, oversize, utilization, bindingResource, placement, unchecked,
+        notes, warnings, hostsNeededWithoutFailures, Optional.empty());
   }
 
   /** A plan not sized for failures. */

@@ -6,6 +6,7 @@ import dev.numafit.diag.Diagnostic;
 import dev.numafit.fit.OversizeCheck;
 import dev.numafit.fit.SpanningRoom;
 import dev.numafit.demand.PlacementRules;
+import dev.numafit.pack.ExactPacker;
 import dev.numafit.pack.LowerBound;
 import dev.numafit.pack.Packing;
 import dev.numafit.pack.Progress;
@@ -53,10 +54,23 @@ import java.util.TreeSet;
  *       × workers), 4 decimals; the binding resource has the highest.
  * </ol>
  *
+ * <p>With an {@link ExactPacker} (the exact mode, {@code plan --exact}), the packing of step 5 is
+ * handed to it to find fewer workers and prove the minimum; the plan then carries an {@link
+ * ExactSearch}. The exact mode covers rule-free inputs of at most {@link #EXACT_MAX_PODS} pods to
+ * pack and refuses others ({@link ExactRefused}).
+ *
  * <p>Pure and deterministic: the same demand and input give the same plan.
  */
 public final class Planner {
+  /**
+   * The most pods (after DaemonSets and oversize pods are taken out) the exact mode accepts. The
+   * search proves small inputs; beyond a few hundred pods it rarely finishes, so a larger input
+   * is refused rather than left running. A larger node limit does not raise this.
+   */
+  public static final int EXACT_MAX_PODS = 500;
+
   private final VectorPacker packer;
+  private final Optional<ExactPacker> exact;
 
   /** A planner with the default packer. */
   public Planner() {
@@ -66,6 +80,16 @@ public final class Planner {
   /** A planner with the given packer (for a different step budget). */
   public Planner(VectorPacker packer) {
     this.packer = packer;
+    this.exact = Optional.empty();
+  }
+
+  /**
+   * A planner in the exact mode: {@code packer}'s packing is the starting point of {@code
+   * exact}'s search.
+   */
+  public Planner(VectorPacker packer, ExactPacker exact) {
+    this.packer = packer;
+    this.exact = Optional.of(exact);
   }
 
   /** Plans the demand onto the input's worker shape. */
@@ -191,6 +215,10 @@ public final class Planner {
           + PlacementRules.HOST_KEY);
     }
     RulePacker.Topology topo = new RulePacker.Topology(perHost, po.zones());
+    if (exact.isPresent()) {
+      refuseExact(ruled, groups, grouped, items.length);
+    }
+    Optional<ExactSearch> exactSearch = Optional.empty();
     int workers;
     int lowerBound;
     int[] binOfItem;
@@ -240,6 +268,11 @@ public final class Planner {
       lowerBound = Math.min(bound, workers);
     } else {
       Packing packing = packer.pack(items, capacity);
+      if (exact.isPresent()) {
+        ExactPacker.Result r = exact.get().improve(items, capacity, packing, progress);
+        packing = r.packing();
+        exactSearch = Optional.of(new ExactSearch(r.provedOptimal(), r.nodes(), r.lowerBound()));
+      }
       workers = packing.bins();
       lowerBound = packing.lowerBound();
       binOfItem = packing.binOfItem();
@@ -357,7 +390,34 @@ public final class Planner {
         List.copyOf(unchecked),
         notes,
         warnings,
-        hostsWithoutFailures);
+        hostsWithoutFailures,
+        exactSearch);
+  }
+
+  /**
+   * Refuses the exact mode where it would not prove what it says: the search keeps no placement
+   * rule, and past {@link #EXACT_MAX_PODS} pods it would only run out of nodes.
+   */
+  private static void refuseExact(
+      boolean ruled, List<RulePacker.Group> groups, List<Workload> grouped, int pods) {
+    if (ruled) {
+      List<String> ids = new ArrayList<>();
+      for (int g = 0; g < groups.size(); g++) {
+        if (groups.get(g).ruled()) {
+          ids.add(grouped.get(g).id().toString());
+        }
+      }
+      String shown = ids.size() <= 3 ? String.join(", ", ids)
+          : String.join(", ", ids.subList(0, 3)) + " and " + (ids.size() - 3) + " more";
+      throw new ExactRefused("--exact covers rule-free inputs only, but " + shown
+          + (ids.size() == 1 ? " carries" : " carry") + " required anti-affinity or"
+          + " DoNotSchedule spread rules (or --spread-replicas-across adds them): plan without"
+          + " --exact");
+    }
+    if (pods > EXACT_MAX_PODS) {
+      throw new ExactRefused("--exact covers at most " + EXACT_MAX_PODS + " pods to pack, this"
+          + " input has " + pods + " (--effort does not raise this limit): plan without --exact");
+    }
   }
 
   /** {@code worker-001}: numbered from 1, zero-padded so names sort in number order. */

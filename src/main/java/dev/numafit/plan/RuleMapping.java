@@ -14,7 +14,8 @@ import java.util.Set;
  * Maps a workload's placement rules and the plan's placement options to the packer's domains:
  * {@code kubernetes.io/hostname} is one worker, {@link PlacementRules#HOST_KEY} one physical
  * host, {@code topology.kubernetes.io/zone} one zone. Rules on other keys, and ScheduleAnyway
- * spread, are noted and not enforced.
+ * spread, are noted and not enforced. Node rules (nodeSelector, node affinity, tolerations) are
+ * checked before packing, against worker pools ({@link PoolPlanner}).
  */
 public final class RuleMapping {
   private RuleMapping() {}
@@ -65,10 +66,6 @@ public final class RuleMapping {
     if (options.spreadReplicasAcross().isPresent() && count >= 2) {
       domainOf(options.spreadReplicasAcross().get())
           .ifPresent(d -> skew.merge(d, 1, Math::min));
-    }
-    if (!rules.nodeSelector().isEmpty()) {
-      notes.add(w.id() + ": nodeSelector " + rules.nodeSelector() + " is not checked against"
-          + " worker labels");
     }
     rules.notModelled().forEach(n -> notes.add(w.id() + ": " + n));
     // Zone rules mean nothing with one zone: every pod is in it.

@@ -67,6 +67,11 @@ final class YamlTree {
    * keys are errors naming the file and line.
    */
   static Node parse(String file, String text) throws InputException {
+    return parse(file, text, "HostProfile");
+  }
+
+  /** As {@link #parse(String, String)}, naming {@code kind} as the document expected. */
+  static Node parse(String file, String text, String kind) throws InputException {
     YAMLMapper mapper = new YAMLMapper();
     List<Diagnostic> errors = new ArrayList<>();
     try (JsonParser p = mapper.createParser(text)) {
@@ -74,7 +79,7 @@ final class YamlTree {
       if (first == null) {
         throw new InputException(
             Diagnostic.error(
-                new SourceRef(file, 1), "expected a HostProfile document, the file is empty"));
+                new SourceRef(file, 1), "expected a " + kind + " document, the file is empty"));
       }
       Node root = read(p, file, errors);
       JsonToken next = p.nextToken();
@@ -82,7 +87,7 @@ final class YamlTree {
         errors.add(
             Diagnostic.error(
                 new SourceRef(file, line(p.currentTokenLocation())),
-                "expected one HostProfile document per file, found a second one"));
+                "expected one " + kind + " document per file, found a second one"));
       }
       if (!errors.isEmpty()) {
         throw new InputException(errors);

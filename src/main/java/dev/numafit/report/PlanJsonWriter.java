@@ -3,6 +3,8 @@ package dev.numafit.report;
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.plan.PoolPlan;
+import dev.numafit.plan.Unplaceable;
 import dev.numafit.plan.WorkerPlacement;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
@@ -13,7 +15,7 @@ import java.util.SortedMap;
 
 /**
  * {@code plan -o json}: {@code schemaVersion}, {@code plans}, {@code comparison}, {@code
- * warnings}; schema in docs/schema/plan.schema.json. Integers are millicores for cpu and bytes or
+ * warnings}, and {@code pools} (with a pools file) and {@code unplaceable} (when not empty); schema in docs/schema/plan.schema.json. Integers are millicores for cpu and bytes or
  * counts for everything else; utilization is a fraction with 4 decimals.
  */
 public final class PlanJsonWriter implements ReportWriter<PlanReport> {
@@ -36,6 +38,32 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
       root.put("comparison", rows);
     }
     root.put("warnings", JsonSupport.diagnostics(report.warnings()));
+    if (!report.pools().isEmpty()) {
+      List<Object> pools = new ArrayList<>();
+      for (PoolPlan pp : report.pools()) {
+        Map<String, Object> pm = JsonSupport.object();
+        pm.put("name", pp.name());
+        Map<String, Object> labels = JsonSupport.object();
+        pp.labels().forEach(labels::put);
+        pm.put("labels", labels);
+        pm.put("taints", pp.taints().stream().map(Object::toString).toList());
+        pm.put("workloads", pp.workloads());
+        pm.put("daemonSets", pp.daemonSets());
+        pools.add(pm);
+      }
+      root.put("pools", pools);
+    }
+    if (!report.unplaceable().isEmpty()) {
+      List<Object> list = new ArrayList<>();
+      for (Unplaceable u : report.unplaceable()) {
+        Map<String, Object> um = JsonSupport.object();
+        um.put("workload", u.workload());
+        um.put("daemonSet", u.daemonSet());
+        um.put("reason", u.reason());
+        list.add(um);
+      }
+      root.put("unplaceable", list);
+    }
     return JsonSupport.write(root);
   }
 
@@ -55,6 +83,14 @@ public final class PlanJsonWriter implements ReportWriter<PlanReport> {
     m.put("workersPerHost", p.workersPerHost().isPresent() ? p.workersPerHost().getAsInt() : null);
     m.put("workersNeeded", p.workersNeeded());
     m.put("lowerBound", p.lowerBound());
+    p.exact().ifPresent(
+        e -> {
+          Map<String, Object> x = JsonSupport.object();
+          x.put("provedOptimal", e.provedOptimal());
+          x.put("nodes", e.nodes());
+          x.put("lowerBound", e.lowerBound());
+          m.put("exact", x);
+        });
     m.put("hostsNeeded", p.hostsNeeded().isPresent() ? p.hostsNeeded().getAsInt() : null);
     if (p.hostsNeededWithoutFailures().isPresent()) {
       m.put("hostsNeededWithoutFailures", p.hostsNeededWithoutFailures().getAsInt());

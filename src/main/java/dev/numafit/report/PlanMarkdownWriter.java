@@ -9,6 +9,8 @@ import dev.numafit.host.NumaNode;
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.plan.PoolPlan;
+import dev.numafit.plan.Unplaceable;
 import dev.numafit.resource.Resources;
 import dev.numafit.shape.ShapeDeriver;
 import java.math.BigDecimal;
@@ -34,6 +36,19 @@ public final class PlanMarkdownWriter implements ReportWriter<PlanReport> {
     sb.append("# Sizing plan\n\n> **").append(Caution.TEXT).append("**\n\n");
     demand(sb, report);
     report.comparison().ifPresent(c -> comparison(sb, c));
+    if (!report.pools().isEmpty()) {
+      pools(sb, report);
+    }
+    if (!report.unplaceable().isEmpty()) {
+      sb.append("## Unplaceable workloads\n\nNode rules no pool satisfies; their pods are not"
+          + " packed.\n\n");
+      Table t = new Table("Workload", "Kind", "Reason");
+      for (Unplaceable u : report.unplaceable()) {
+        t.row(u.workload(), u.daemonSet() ? "DaemonSet (runs on no worker)" : "workload",
+            u.reason());
+      }
+      sb.append(t.render()).append('\n');
+    }
     for (Plan p : report.plans()) {
       plan(sb, report, p);
     }
@@ -176,11 +191,38 @@ public final class PlanMarkdownWriter implements ReportWriter<PlanReport> {
     return v.isPresent() ? Integer.toString(v.getAsInt()) : "–";
   }
 
+  /** The pools side by side, with their labels, taints, workloads and DaemonSets. */
+  private static void pools(StringBuilder sb, PlanReport report) {
+    sb.append("## Worker pools\n\nEach workload is placed in the first pool it may run on; the"
+        + " scheduler may spread it over every such pool.\n\n");
+    Table t = new Table("Pool", "Host profile", ">vCPU", ">Memory", ">Workers", ">Hosts",
+        "Labels", "Taints", "Workloads", "DaemonSets");
+    for (PoolPlan pp : report.pools()) {
+      Plan p = pp.plan();
+      List<String> labels = new ArrayList<>();
+      pp.labels().forEach((k, v) -> labels.add(k + "=" + v));
+      t.row(pp.name(), p.hostProfile().orElse("–"), Long.toString(p.worker().vcpus()),
+          Units.bytes(p.worker().memoryBytes()), Integer.toString(p.workersNeeded()),
+          optional(p.hostsNeeded()), listOrNone(labels),
+          listOrNone(pp.taints().stream().map(Object::toString).toList()),
+          listOrNone(pp.workloads()), listOrNone(pp.daemonSets()));
+    }
+    sb.append(t.render()).append('\n');
+  }
+
+  private static String listOrNone(List<String> items) {
+    return items.isEmpty() ? "none" : String.join(", ", items);
+  }
+
   private static void plan(StringBuilder sb, PlanReport report, Plan p) {
-    sb.append("## ")
-        .append(esc(p.hostProfile().map(n -> "Plan for host profile " + n)
-            .orElse("Plan for the given worker")))
-        .append("\n\n");
+    java.util.Optional<PoolPlan> pool = report.poolOf(p);
+    String title =
+        pool.isPresent()
+            ? "Pool " + pool.get().name()
+                + p.hostProfile().map(n -> " on host profile " + n).orElse(" of the given worker")
+            : p.hostProfile().map(n -> "Plan for host profile " + n)
+                .orElse("Plan for the given worker");
+    sb.append("## ").append(esc(title)).append("\n\n");
     Table s = new Table("Figure", ">Value");
     s.row("Worker vCPUs", Long.toString(p.worker().vcpus()));
     s.row("Worker memory", Units.bytes(p.worker().memoryBytes()));
@@ -190,6 +232,10 @@ public final class PlanMarkdownWriter implements ReportWriter<PlanReport> {
     }
     s.row("Workers needed", Integer.toString(p.workersNeeded()));
     s.row("No packing can use fewer than", Integer.toString(p.lowerBound()));
+    p.exact().ifPresent(
+        e -> s.row("Exact search",
+            (e.provedOptimal() ? "proved optimal" : "best found within the effort limit")
+                + " (" + e.nodes() + " search nodes)"));
     if (p.hostsNeeded().isPresent()) {
       s.row("Hosts needed", optional(p.hostsNeeded()));
     }

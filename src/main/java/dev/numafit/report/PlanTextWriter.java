@@ -3,6 +3,8 @@ package dev.numafit.report;
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.plan.PoolPlan;
+import dev.numafit.plan.Unplaceable;
 import dev.numafit.plan.WorkerPlacement;
 import dev.numafit.shape.WorkerShape;
 import java.math.BigDecimal;
@@ -62,6 +64,12 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
     for (Plan p : report.plans()) {
       sb.append('\n').append(plan(p, report));
     }
+    if (!report.pools().isEmpty()) {
+      sb.append('\n').append(pools(report));
+    }
+    if (!report.unplaceable().isEmpty()) {
+      sb.append('\n').append(unplaceable(report));
+    }
     if (!report.comparison().isEmpty()) {
       sb.append('\n').append(comparison(report));
     }
@@ -71,13 +79,25 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
 
   private String plan(Plan p, PlanReport report) {
     StringBuilder sb = new StringBuilder();
-    sb.append(
-        style.paint("1",
-            p.hostProfile().map(n -> "Plan for host profile " + n)
-                .orElse("Plan for the given worker")))
-        .append('\n');
+    java.util.Optional<PoolPlan> pool = report.poolOf(p);
+    String title =
+        pool.isPresent()
+            ? "Pool " + pool.get().name()
+                + p.hostProfile().map(n -> " on host profile " + n).orElse(" of the given worker")
+            : p.hostProfile().map(n -> "Plan for host profile " + n)
+                .orElse("Plan for the given worker");
+    sb.append(style.paint("1", title)).append('\n');
     WorkerShape w = p.worker();
     kv(sb, "Worker", List.of(shape(w)));
+    if (pool.isPresent()) {
+      PoolPlan pp = pool.get();
+      List<String> labels = new ArrayList<>();
+      pp.labels().forEach((k, v) -> labels.add(k + "=" + v));
+      kv(sb, "Labels", labels);
+      kv(sb, "Taints", pp.taints().stream().map(Object::toString).toList());
+      kv(sb, "Workloads", pp.workloads());
+      kv(sb, "DaemonSets", pp.daemonSets());
+    }
     kv(sb, "Allocatable", Units.items(p.allocatable()));
     kv(sb, "On every worker", Units.items(p.perWorkerDemand()));
     kv(sb, "Room for pods", Units.items(p.room()));
@@ -88,6 +108,10 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
         sb,
         "Workers needed",
         List.of(p.workersNeeded() + " (no packing can use fewer than " + p.lowerBound() + ")"));
+    p.exact().ifPresent(
+        e -> kv(sb, "Exact search", List.of(
+            (e.provedOptimal() ? "proved optimal" : "best found within the effort limit")
+                + " (" + e.nodes() + " search nodes)")));
     if (p.hostsNeeded().isPresent()) {
       String hostsLine = Integer.toString(p.hostsNeeded().getAsInt());
       if (p.hostsNeededWithoutFailures().isPresent()) {
@@ -142,6 +166,44 @@ public final class PlanTextWriter implements ReportWriter<PlanReport> {
                 "      ",
                 wp.pods().isEmpty() ? "(empty)" : String.join(" ", wp.pods())));
       }
+    }
+    return sb.toString();
+  }
+
+  /** The pools side by side. */
+  private String pools(PlanReport report) {
+    StringBuilder sb = new StringBuilder("Pools:\n");
+    TextTable t =
+        new TextTable("POOL", ">VCPU", ">MEMORY", ">WORKERS", ">HOSTS", ">WORKLOADS",
+            ">DAEMONSETS");
+    for (PoolPlan pp : report.pools()) {
+      Plan p = pp.plan();
+      t.row(
+          pp.name(),
+          Long.toString(p.worker().vcpus()),
+          Units.bytes(p.worker().memoryBytes()),
+          Integer.toString(p.workersNeeded()),
+          p.hostsNeeded().isPresent() ? Integer.toString(p.hostsNeeded().getAsInt()) : "-",
+          Integer.toString(pp.workloads().size()),
+          Integer.toString(pp.daemonSets().size()));
+    }
+    sb.append(t.render("  "));
+    sb.append(TextSupport.wrap(style.width(), "  ", "  ", "Each workload is placed in the first"
+        + " pool it may run on; the scheduler may spread it over every such pool."));
+    return sb.toString();
+  }
+
+  /** Workloads no pool takes, each with its reason. */
+  private String unplaceable(PlanReport report) {
+    StringBuilder sb =
+        new StringBuilder("Unplaceable (node rules no pool satisfies; not packed):\n");
+    for (Unplaceable u : report.unplaceable()) {
+      sb.append(
+          TextSupport.wrap(
+              style.width(),
+              "  " + u.workload() + ": ",
+              "    ",
+              (u.daemonSet() ? "DaemonSet runs on no worker: " : "") + u.reason() + "."));
     }
     return sb.toString();
   }

@@ -69,11 +69,11 @@ class ReviewConfigTest {
   void review_unknownKey_errorWithFileAndLine() throws Exception {
     files("""
         snapshot: cluster/shop.json
-        pools: pool=general
+        node-pools: pool=general
         """);
     CliRun r = CliRun.in(dir, "", "review", "--pool", "pool=general");
     assertEquals(2, r.code());
-    assertTrue(r.err().startsWith("numafit.yaml:2: error: unknown option \"pools\" for numafit"
+    assertTrue(r.err().startsWith("numafit.yaml:2: error: unknown option \"node-pools\" for numafit"
         + " review"), r.err());
   }
 

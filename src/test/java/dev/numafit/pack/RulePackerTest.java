@@ -142,4 +142,25 @@ class RulePackerTest {
     RulePacker.FailureResult f = RulePacker.hostsToSurvive(g, CPU4, t, layout, 0, true, 10);
     assertEquals(8, f.hosts());
   }
+
+  @Test
+  void hostsToSurvive_bestFitDecreasing_noExtraHost() {
+    // Hand-worked, 10000m workers, two per host. w0 holds 4000m (6000m free) and w1 6000m
+    // (4000m free) on host 0; w2 on host 1 holds 4000m + 3000m + 3000m (full), host 1's second
+    // slot is free. Losing host 1 displaces 4000m, 3000m, 3000m into 6000m + 4000m of room: the
+    // 4000m pod must take the 4000m room for the two 3000m pods to fit the 6000m (best fit does;
+    // first fit would put 4000m on w0 and strand a 3000m pod). Losing host 0 displaces 6000m and
+    // 4000m: one new worker in host 1's free slot takes both. So the layout's 2 hosts survive.
+    List<Group> g =
+        List.of(
+            Group.plain(new long[] {4000}, 2),
+            Group.plain(new long[] {3000}, 2),
+            Group.plain(new long[] {6000}, 1));
+    Topology t = new Topology(2, 1);
+    RulePacker.Result layout = RulePacker.fromPacking(new int[] {0, 2, 2, 2, 1}, 3, t);
+    assertEquals(2, layout.hosts());
+    assertEquals(
+        new RulePacker.FailureResult(2, true, true),
+        RulePacker.hostsToSurvive(g, new long[] {10000}, t, layout, 1, false, 5));
+  }
 }

@@ -13,6 +13,8 @@ import dev.numafit.host.NumaNode;
 import dev.numafit.plan.Oversize;
 import dev.numafit.plan.Plan;
 import dev.numafit.plan.PlanComparison;
+import dev.numafit.plan.PoolPlan;
+import dev.numafit.plan.Unplaceable;
 import dev.numafit.report.Caution;
 import dev.numafit.report.DemandTotals;
 import dev.numafit.report.PlanHost;
@@ -63,6 +65,12 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     if (report.comparison().isPresent()) {
       comparison(sb, report.comparison().get());
     }
+    if (!report.pools().isEmpty()) {
+      pools(sb, report);
+    }
+    if (!report.unplaceable().isEmpty()) {
+      unplaceable(sb, report);
+    }
     for (int i = 0; i < report.plans().size(); i++) {
       plan(sb, report, i);
     }
@@ -77,8 +85,63 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
         + (report.plans().size() == 1 ? " plan" : " plans");
   }
 
-  private static String planTitle(Plan p) {
+  private static String planTitle(PlanReport report, Plan p) {
+    java.util.Optional<PoolPlan> pool = report.poolOf(p);
+    if (pool.isPresent()) {
+      return "Pool " + pool.get().name()
+          + p.hostProfile().map(n -> " on host profile " + n).orElse(" of the given worker");
+    }
     return p.hostProfile().map(n -> "Plan for host profile " + n).orElse("Plan for the given worker");
+  }
+
+  /** The pools side by side: shape, workers, hosts, labels, taints, workloads, DaemonSets. */
+  private static void pools(StringBuilder sb, PlanReport report) {
+    sb.append("<section id=\"pools\">\n<h2>Worker pools</h2>\n<p>Each workload is placed in the"
+        + " first pool it may run on; the scheduler may spread it over every such pool.</p>\n");
+    sb.append("<table>\n<caption>Pools</caption>\n<thead><tr><th scope=\"col\">Pool</th>"
+        + "<th scope=\"col\">vCPU</th><th scope=\"col\">Memory</th>"
+        + "<th scope=\"col\">Workers</th><th scope=\"col\">Hosts</th>"
+        + "<th scope=\"col\">Labels</th><th scope=\"col\">Taints</th>"
+        + "<th scope=\"col\">Workloads</th><th scope=\"col\">DaemonSets</th></tr></thead>\n"
+        + "<tbody>\n");
+    for (int i = 0; i < report.pools().size(); i++) {
+      PoolPlan pp = report.pools().get(i);
+      Plan p = pp.plan();
+      List<String> labels = new ArrayList<>();
+      pp.labels().forEach((key, v) -> labels.add(key + "=" + v));
+      sb.append("<tr><th scope=\"row\">").append(esc(pp.name())).append("</th>")
+          // Plain cells: the plan's own section holds these figures with their JSON pointers.
+          .append("<td class=\"num\">").append(p.worker().vcpus()).append("</td>")
+          .append("<td class=\"num\">").append(esc(Units.bytes(p.worker().memoryBytes())))
+          .append("</td><td class=\"num\">").append(p.workersNeeded()).append("</td>")
+          .append("<td class=\"num\">")
+          .append(p.hostsNeeded().isPresent() ? "" + p.hostsNeeded().getAsInt() : "–")
+          .append("</td>")
+          .append("<td>").append(esc(listOrNone(labels))).append("</td>")
+          .append("<td>").append(esc(listOrNone(pp.taints().stream().map(Object::toString)
+              .toList()))).append("</td>")
+          .append("<td>").append(esc(listOrNone(pp.workloads()))).append("</td>")
+          .append("<td>").append(esc(listOrNone(pp.daemonSets()))).append("</td></tr>\n");
+    }
+    sb.append("</tbody>\n</table>\n</section>\n");
+  }
+
+  /** Workloads whose node rules no pool satisfies. */
+  private static void unplaceable(StringBuilder sb, PlanReport report) {
+    sb.append("<section id=\"unplaceable\">\n<h2>Unplaceable workloads</h2>\n<p>Node rules no"
+        + " pool satisfies; their pods are not packed.</p>\n<table>\n<thead><tr>"
+        + "<th scope=\"col\">Workload</th><th scope=\"col\">Kind</th>"
+        + "<th scope=\"col\">Reason</th></tr></thead>\n<tbody>\n");
+    for (Unplaceable u : report.unplaceable()) {
+      sb.append("<tr><th scope=\"row\">").append(esc(u.workload())).append("</th><td>")
+          .append(u.daemonSet() ? "DaemonSet (runs on no worker)" : "workload")
+          .append("</td><td>").append(esc(u.reason())).append("</td></tr>\n");
+    }
+    sb.append("</tbody>\n</table>\n</section>\n");
+  }
+
+  private static String listOrNone(List<String> items) {
+    return items.isEmpty() ? "none" : String.join(", ", items);
   }
 
   private static void contents(StringBuilder sb, PlanReport report) {
@@ -86,9 +149,15 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     if (report.comparison().isPresent()) {
       sb.append("<li><a href=\"#comparison\">Host profiles compared</a></li>\n");
     }
+    if (!report.pools().isEmpty()) {
+      sb.append("<li><a href=\"#pools\">Worker pools</a></li>\n");
+    }
+    if (!report.unplaceable().isEmpty()) {
+      sb.append("<li><a href=\"#unplaceable\">Unplaceable workloads</a></li>\n");
+    }
     for (int i = 0; i < report.plans().size(); i++) {
       sb.append("<li><a href=\"#plan-").append(i).append("\">")
-          .append(esc(planTitle(report.plans().get(i)))).append("</a></li>\n");
+          .append(esc(planTitle(report, report.plans().get(i)))).append("</a></li>\n");
     }
     sb.append("<li><a href=\"#warnings\">Warnings and notes</a></li>\n</ul></nav>\n");
   }
@@ -229,7 +298,7 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     String k = "/plans/" + i + "/";
     sb.append("<section class=\"plan\" id=\"plan-").append(i).append("\" data-profile=\"")
         .append(esc(p.hostProfile().orElse(""))).append("\">\n<h2>")
-        .append(esc(planTitle(p))).append("</h2>\n");
+        .append(esc(planTitle(report, p))).append("</h2>\n");
     sb.append("<table class=\"kv summary\">\n<caption>Summary</caption>\n");
     sb.append("<tr><th scope=\"row\">Worker vCPUs</th>")
         .append(figure(k + "worker/vcpus", p.worker().vcpus(), "" + p.worker().vcpus()))
@@ -247,6 +316,13 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
         .append(figure(k + "workersNeeded", p.workersNeeded(), "" + p.workersNeeded()))
         .append("</tr>\n<tr><th scope=\"row\">No packing can use fewer than</th>")
         .append(figure(k + "lowerBound", p.lowerBound(), "" + p.lowerBound())).append("</tr>\n");
+    p.exact().ifPresent(
+        e -> sb.append("<tr><th scope=\"row\">Exact search</th>")
+            .append(figure(k + "exact/provedOptimal", e.provedOptimal(),
+                e.provedOptimal() ? "proved optimal" : "best found within the effort limit"))
+            .append("</tr>\n<tr><th scope=\"row\">Search nodes</th>")
+            .append(figure(k + "exact/nodes", e.nodes(), "" + e.nodes()))
+            .append("</tr>\n"));
     if (p.hostsNeeded().isPresent()) {
       sb.append("<tr><th scope=\"row\">Hosts needed</th>")
           .append(optionalInt(k + "hostsNeeded", p.hostsNeeded())).append("</tr>\n");
