@@ -12,8 +12,9 @@ import java.util.Map;
  * "Classification and evaluation of the algorithms for vector bin packing" (Computers &amp; OR,
  * 2025): first-fit-decreasing by the largest normalised demand, then other orders (sum of
  * normalised demands, and demands weighted by how loaded each dimension is overall) and best-fit
- * variants, keeping the best; then an improvement pass that tries to empty the least-filled bins
- * by moving their items elsewhere, swapping a smaller item out of a bin where that makes room.
+ * variants, keeping the best; a minimum-bin-slack fill (one bin at a time, the subset of the
+ * remaining items that fills it best); then a local search that removes one bin at a time
+ * ({@link PoolSearch}).
  *
  * <p>Deterministic: effort is counted in steps (one step per bin or item examined) against a
  * budget given at construction, never in time, so the same input always gives the same packing.
@@ -25,8 +26,10 @@ import java.util.Map;
  */
 public final class VectorPacker {
   /**
-   * Default step budget. On the published instances (docs/performance.md) larger budgets gained
-   * almost nothing; on 150,000 pods this keeps packing well under half a second.
+   * Default step budget. On 150,000 pods this keeps packing under half a second (the greedy
+   * passes spend it all there); on the published instances a few times more still gains a little
+   * (docs/performance.md, "Packing quality on published instances"), which {@code --effort N}
+   * buys. The budget is the same whatever the input's size: large inputs simply get fewer passes.
    */
   public static final long DEFAULT_STEP_BUDGET = 2_000_000L;
 
@@ -269,8 +272,13 @@ public final class VectorPacker {
         }
       }
       if (bestBins > lowerBound && steps < budget) {
-        Improver improver = new Improver(in, best, sumNormItemKeys());
-        best = improver.run(lowerBound);
+        long[] w = new long[Math.multiplyExact(in.n, in.d)];
+        for (int i = 0; i < in.n; i++) {
+          System.arraycopy(in.w, in.typeOfItem[i] * in.d, w, i * in.d, in.d);
+        }
+        PoolSearch pool = new PoolSearch(in.n, in.d, in.cap, w, best, budget - steps);
+        best = pool.run(lowerBound);
+        steps += pool.steps();
       }
       return new Packing(binsOf(best), best, steps, lowerBound);
     }
@@ -324,15 +332,6 @@ public final class VectorPacker {
           s += total[k] * in.w(t, k) / in.cap[k];
         }
         key[t] = s;
-      }
-      return key;
-    }
-
-    private double[] sumNormItemKeys() {
-      double[] byType = sumNormKeys();
-      double[] key = new double[in.n];
-      for (int i = 0; i < in.n; i++) {
-        key[i] = byType[in.typeOfItem[i]];
       }
       return key;
     }
@@ -741,282 +740,6 @@ public final class VectorPacker {
           next[b] = b + 1;
         }
         update(b);
-      }
-    }
-
-    // --- improvement -----------------------------------------------------------------------
-
-    /** Tries to empty the least-filled bins by moves and swaps; keeps only complete successes. */
-    private final class Improver {
-      private final Instance in;
-      private final int d;
-      private final double[] key;
-      private final int[] binOf;
-      private int binCount;
-      private long[] res;
-      private int[][] itemsOf;
-      private int[] sizeOf;
-      private final int[] posOf;
-      private boolean[] dead;
-      private int live;
-      // Undo log of moves made by the current attempt.
-      private int[] logItem = new int[64];
-      private int[] logFrom = new int[64];
-      private int logSize;
-
-      Improver(Instance in, int[] start, double[] key) {
-        this.in = in;
-        this.d = in.d;
-        this.key = key;
-        this.binOf = start.clone();
-        this.binCount = binsOf(start);
-        this.live = binCount;
-        this.res = new long[binCount * d];
-        this.itemsOf = new int[binCount][];
-        this.sizeOf = new int[binCount];
-        this.posOf = new int[in.n];
-        this.dead = new boolean[binCount];
-        for (int b = 0; b < binCount; b++) {
-          System.arraycopy(in.cap, 0, res, b * d, d);
-        }
-        for (int i = 0; i < in.n; i++) {
-          sizeOf[binOf[i]]++;
-        }
-        for (int b = 0; b < binCount; b++) {
-          itemsOf[b] = new int[Math.max(4, sizeOf[b])];
-          sizeOf[b] = 0;
-        }
-        for (int i = 0; i < in.n; i++) {
-          int b = binOf[i];
-          insert(i, b);
-          subtract(i, b);
-        }
-      }
-
-      int[] run(int lowerBound) {
-        while (live > lowerBound && steps < budget) {
-          boolean progress = false;
-          for (int target : binsByFill()) {
-            if (steps >= budget) {
-              break;
-            }
-            if (tryEmpty(target)) {
-              progress = true;
-              break;
-            }
-          }
-          if (!progress) {
-            break;
-          }
-        }
-        // Renumber the surviving bins in their old order.
-        int[] renumber = new int[binCount];
-        int next = 0;
-        for (int b = 0; b < binCount; b++) {
-          renumber[b] = dead[b] ? -1 : next++;
-        }
-        int[] out = new int[in.n];
-        for (int i = 0; i < in.n; i++) {
-          out[i] = renumber[binOf[i]];
-        }
-        return out;
-      }
-
-      private Integer[] binsByFill() {
-        Integer[] order = new Integer[live];
-        double[] fill = new double[binCount];
-        int j = 0;
-        for (int b = 0; b < binCount; b++) {
-          if (!dead[b]) {
-            order[j++] = b;
-            for (int k = 0; k < d; k++) {
-              fill[b] += (double) (in.cap[k] - res[b * d + k]) / in.cap[k];
-            }
-          }
-        }
-        Arrays.sort(order, (a, b) -> {
-          int c = Double.compare(fill[a], fill[b]);
-          return c != 0 ? c : Integer.compare(a, b);
-        });
-        return order;
-      }
-
-      private boolean tryEmpty(int target) {
-        logSize = 0;
-        // Pending items, kept sorted by decreasing key (ties: lower item index first).
-        int[] pending = Arrays.copyOf(itemsOf[target], sizeOf[target]);
-        int pendingSize = pending.length;
-        sortByKeyDesc(pending, pendingSize);
-        while (pendingSize > 0) {
-          if (steps >= budget) {
-            undo();
-            return false;
-          }
-          int x = pending[0];
-          System.arraycopy(pending, 1, pending, 0, --pendingSize);
-          int b = bestBinFor(x, target);
-          if (b >= 0) {
-            move(x, b);
-            continue;
-          }
-          long swap = swapFor(x, target);
-          if (swap < 0) {
-            undo();
-            return false;
-          }
-          int y = (int) swap;
-          int yb = binOf[y];
-          move(y, target);
-          move(x, yb);
-          // Insert y keeping the order; y is smaller than every item already placed this round.
-          if (pendingSize == pending.length) {
-            pending = Arrays.copyOf(pending, pending.length * 2 + 1);
-          }
-          int at = pendingSize;
-          while (at > 0 && before(y, pending[at - 1])) {
-            pending[at] = pending[at - 1];
-            at--;
-          }
-          pending[at] = y;
-          pendingSize++;
-        }
-        dead[target] = true;
-        live--;
-        return true;
-      }
-
-      private boolean before(int a, int b) {
-        int c = Double.compare(key[b], key[a]);
-        return c != 0 ? c < 0 : a < b;
-      }
-
-      private void sortByKeyDesc(int[] a, int size) {
-        Integer[] boxed = new Integer[size];
-        for (int i = 0; i < size; i++) {
-          boxed[i] = a[i];
-        }
-        Arrays.sort(boxed, (p, q) -> before(p, q) ? -1 : (before(q, p) ? 1 : 0));
-        for (int i = 0; i < size; i++) {
-          a[i] = boxed[i];
-        }
-      }
-
-      /** The live bin (not the target) where x fits leaving the least normalised slack, or -1. */
-      private int bestBinFor(int x, int target) {
-        int t = in.typeOfItem[x];
-        int best = -1;
-        double bestSlack = Double.MAX_VALUE;
-        for (int b = 0; b < binCount; b++) {
-          if (dead[b] || b == target) {
-            continue;
-          }
-          steps++;
-          boolean fits = true;
-          double slack = 0;
-          for (int k = 0; k < d; k++) {
-            long r = res[b * d + k] - in.w(t, k);
-            if (r < 0) {
-              fits = false;
-              break;
-            }
-            slack += (double) r / in.cap[k];
-          }
-          if (fits && slack < bestSlack) {
-            best = b;
-            bestSlack = slack;
-          }
-        }
-        return best;
-      }
-
-      /**
-       * An item y in another live bin, smaller than x, whose place x can take: the smallest such
-       * y, so the bin ends fuller and y is the easiest to place. -1 when none.
-       */
-      private long swapFor(int x, int target) {
-        int tx = in.typeOfItem[x];
-        int bestY = -1;
-        for (int b = 0; b < binCount; b++) {
-          if (dead[b] || b == target) {
-            continue;
-          }
-          for (int j = 0; j < sizeOf[b]; j++) {
-            int y = itemsOf[b][j];
-            steps++;
-            if (!(key[y] < key[x]) || (bestY >= 0 && !before(bestY, y))) {
-              continue;
-            }
-            int ty = in.typeOfItem[y];
-            boolean fits = true;
-            for (int k = 0; k < d; k++) {
-              if (res[b * d + k] + in.w(ty, k) - in.w(tx, k) < 0) {
-                fits = false;
-                break;
-              }
-            }
-            if (fits) {
-              bestY = y;
-            }
-          }
-        }
-        return bestY;
-      }
-
-      private void move(int item, int to) {
-        int from = binOf[item];
-        if (logSize == logItem.length) {
-          logItem = Arrays.copyOf(logItem, logSize * 2);
-          logFrom = Arrays.copyOf(logFrom, logSize * 2);
-        }
-        logItem[logSize] = item;
-        logFrom[logSize] = from;
-        logSize++;
-        relocate(item, from, to);
-      }
-
-      private void undo() {
-        for (int i = logSize - 1; i >= 0; i--) {
-          int item = logItem[i];
-          relocate(item, binOf[item], logFrom[i]);
-        }
-        logSize = 0;
-      }
-
-      private void relocate(int item, int from, int to) {
-        remove(item, from);
-        add(item, from);
-        insert(item, to);
-        subtract(item, to);
-        binOf[item] = to;
-      }
-
-      private void subtract(int item, int b) {
-        int t = in.typeOfItem[item];
-        for (int k = 0; k < d; k++) {
-          res[b * d + k] -= in.w(t, k);
-        }
-      }
-
-      private void add(int item, int b) {
-        int t = in.typeOfItem[item];
-        for (int k = 0; k < d; k++) {
-          res[b * d + k] += in.w(t, k);
-        }
-      }
-
-      private void insert(int item, int b) {
-        if (sizeOf[b] == itemsOf[b].length) {
-          itemsOf[b] = Arrays.copyOf(itemsOf[b], sizeOf[b] * 2 + 1);
-        }
-        posOf[item] = sizeOf[b];
-        itemsOf[b][sizeOf[b]++] = item;
-      }
-
-      private void remove(int item, int b) {
-        int p = posOf[item];
-        int last = itemsOf[b][--sizeOf[b]];
-        itemsOf[b][p] = last;
-        posOf[last] = p;
       }
     }
   }
