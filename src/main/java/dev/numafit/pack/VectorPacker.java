@@ -143,12 +143,21 @@ public final class VectorPacker {
                 "item " + i + " exceeds capacity in dimension " + k + ": " + item[k] + " > "
                     + capacity[k]);
           }
-          if (item[k] > 0) {
-            used[k] = true;
-          }
         }
       }
-      // Dimensions no item uses cannot bind: leave them out of every inner loop.
+      // A dimension binds only when the items together need more than one bin's room there
+      // (e.g. the pods limit on a few large pods): leave the others out of every inner loop, so
+      // they neither cost time nor sway the search's sizes.
+      for (int k = 0; k < dAll; k++) {
+        long total = 0;
+        for (long[] item : items) {
+          if (item[k] > capacity[k] - total) {
+            used[k] = true;
+            break;
+          }
+          total += item[k];
+        }
+      }
       int d = 0;
       int[] dims = new int[dAll];
       for (int k = 0; k < dAll; k++) {
