@@ -28,7 +28,9 @@ import java.util.SplittableRandom;
  *       is hard to place eventually displaces lighter ones (the weighting idea of "Consistent
  *       neighborhood search for one-dimensional bin packing and two-dimensional vector packing",
  *       Computers &amp; OR, 2016, written here from the idea), with a short tabu list as above.
- *       Strong on several dimensions.
+ *       Strong on several dimensions. On one dimension, whenever no move lowers the pool's
+ *       weight, a short descent between bins (see {@link #concentrate}) first raises the sum of
+ *       squared bin fills, gathering free room in few bins.
  * </ol>
  *
  * <p>Feasibility is always checked per dimension; the normalised sums only rank moves.
@@ -245,6 +247,10 @@ final class PoolSearch {
           weight[i] += WEIGHT_STEP * Math.max(size[i], 1e-9);
         }
         steps += poolSize;
+        if (d == 1) {
+          // On one dimension, gather the bins' free room so a pool item may fit as it is.
+          concentrate((long) ((limit - steps) * CONCENTRATE_SHARE));
+        }
         continue;
       }
       apply();
@@ -587,6 +593,155 @@ final class PoolSearch {
         }
       }
     }
+  }
+
+  // --- concentrating free room -----------------------------------------------------------------
+
+  /**
+   * Share of the steps left in the current phase that one descent towards fuller bins may spend
+   * (the descent itself stops earlier at a local optimum).
+   */
+  static final double CONCENTRATE_SHARE = 0.05;
+
+  /**
+   * A descent between bins within capacity that raises the sum of squared bin fills (normalised,
+   * summed over dimensions): one or two items of one bin are exchanged with none, one or two
+   * items of another, both bins staying within capacity in every dimension. Raising that sum
+   * gathers the free room in few bins, which is what makes exactly filled bins appear (the
+   * least-filled bin then holds less to place elsewhere). Stops at a local optimum or after
+   * {@code maxSteps}; true when anything moved.
+   */
+  private boolean concentrate(long maxSteps) {
+    long stop = Math.min(limit, steps + maxSteps);
+    boolean movedAny = false;
+    // Walk the pairs of bins cyclically from where the last descent stopped, so that a descent
+    // cut short by its step share does not always revisit the same pairs; a full cycle without a
+    // move is a local optimum.
+    long quiet = 0;
+    long pairs = (long) bins * (bins - 1) / 2;
+    while (steps < stop && quiet < pairs) {
+      if (pairA >= bins - 1 || pairB >= bins) {
+        pairA = 0;
+        pairB = 1;
+      }
+      if (improvePair(pairA, pairB, stop)) {
+        movedAny = true;
+        quiet = 0;
+      } else {
+        quiet++;
+      }
+      if (++pairB >= bins) {
+        pairA++;
+        pairB = pairA + 1;
+      }
+    }
+    return movedAny;
+  }
+
+  /** The next pair of bins the descent looks at. */
+  private int pairA;
+
+  private int pairB = 1;
+
+  private long[] setSumA = new long[0];
+  private int[] setA = new int[0];
+  private long[] setSumB = new long[0];
+  private int[] setB = new int[0];
+
+  /** Sets of none, one or two items of bin b: their items (pairs) and demand sums; the count. */
+  private int setsOf(int b, boolean first) {
+    int m = countOf[b];
+    int count = 1 + m + m * (m - 1) / 2;
+    int[] items = first ? setA : setB;
+    long[] sums = first ? setSumA : setSumB;
+    if (items.length < 2 * count) {
+      items = new int[2 * count];
+      sums = new long[count * d];
+    } else if (sums.length < count * d) {
+      sums = new long[count * d];
+    }
+    int s = 0;
+    for (int p1 = -1; p1 < m; p1++) {
+      for (int p2 = p1; p2 < m; p2++) {
+        if (p1 < 0 && p2 >= 0) {
+          break;
+        }
+        int i1 = p1 < 0 ? -1 : itemsOf[b][p1];
+        int i2 = p2 == p1 ? -1 : itemsOf[b][p2];
+        items[2 * s] = i1;
+        items[2 * s + 1] = i2;
+        for (int k = 0; k < d; k++) {
+          sums[s * d + k] = (i1 < 0 ? 0 : w[i1 * d + k]) + (i2 < 0 ? 0 : w[i2 * d + k]);
+        }
+        s++;
+      }
+    }
+    if (first) {
+      setA = items;
+      setSumA = sums;
+    } else {
+      setB = items;
+      setSumB = sums;
+    }
+    return s;
+  }
+
+  /** Applies the exchange between bins a and b that raises the sum of squared fills most. */
+  private boolean improvePair(int a, int b, long stop) {
+    int sa = setsOf(a, true);
+    int sb = setsOf(b, false);
+    double bestRise = 1e-12;
+    int bestS = -1;
+    int bestT = -1;
+    for (int s = 0; s < sa && steps < stop; s++) {
+      for (int t = 0; t < sb; t++) {
+        if (s == 0 && t == 0) {
+          continue;
+        }
+        steps++;
+        double rise = 0;
+        boolean ok = true;
+        for (int k = 0; k < d; k++) {
+          // delta moves from a to b.
+          long delta = setSumA[s * d + k] - setSumB[t * d + k];
+          if (delta > res[b * d + k] || -delta > res[a * d + k]) {
+            ok = false;
+            break;
+          }
+          double x = (double) delta / cap[k];
+          double fa = 1 - (double) res[a * d + k] / cap[k];
+          double fb = 1 - (double) res[b * d + k] / cap[k];
+          rise += 2 * x * (x + fb - fa);
+        }
+        if (ok && rise > bestRise) {
+          bestRise = rise;
+          bestS = s;
+          bestT = t;
+        }
+      }
+    }
+    if (bestS < 0) {
+      return false;
+    }
+    int[] fromA = {setA[2 * bestS], setA[2 * bestS + 1]};
+    int[] fromB = {setB[2 * bestT], setB[2 * bestT + 1]};
+    for (int i : fromA) {
+      if (i >= 0) {
+        takeFromBin(i);
+      }
+    }
+    for (int j : fromB) {
+      if (j >= 0) {
+        takeFromBin(j);
+        putInBin(j, a);
+      }
+    }
+    for (int i : fromA) {
+      if (i >= 0) {
+        putInBin(i, b);
+      }
+    }
+    return true;
   }
 
   // --- bookkeeping ---------------------------------------------------------------------------
