@@ -1,12 +1,12 @@
 package dev.numafit.cli;
 
-import dev.numafit.demand.ReplicaMode;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParentCommand;
 
@@ -45,13 +45,7 @@ import picocli.CommandLine.ParentCommand;
 public final class CheckCommand implements Callable<Integer> {
   @ParentCommand NumafitCommand root;
 
-  @Option(
-      names = {"-f", "--filename"},
-      paramLabel = "PATH",
-      description =
-          "Manifest file (.yaml, .yml, .json), folder (read recursively) or - for standard input."
-              + " Repeatable.")
-  List<String> files = new ArrayList<>();
+  @Mixin ManifestOptions manifests = new ManifestOptions();
 
   @Option(
       names = "--host-profile",
@@ -65,33 +59,7 @@ public final class CheckCommand implements Callable<Integer> {
       description = "Worker capacity given directly, e.g. cpu=16,memory=64Gi.")
   String worker;
 
-  @Option(names = "--kube-reserved", paramLabel = "cpu=Q,memory=Q",
-      description = "kube-reserved on each worker (default: the tiered scale in docs/shapes.md).")
-  String kubeReserved;
-
-  @Option(names = "--system-reserved", paramLabel = "cpu=Q,memory=Q",
-      description = "system-reserved on each worker (default: none).")
-  String systemReserved;
-
-  @Option(names = "--eviction-hard", paramLabel = "memory.available=Q",
-      description = "Hard eviction threshold (default: memory.available=100Mi).")
-  String evictionHard;
-
-  @Option(names = "--max-pods", paramLabel = "N", description = "The kubelet's maxPods (default: 110).")
-  Integer maxPods;
-
-  @Option(names = "--kubelet-reserve", paramLabel = "none",
-      description = "none: no kube-reserved, system-reserved or eviction threshold.")
-  String kubeletReserve;
-
-  @Option(names = "--per-worker", paramLabel = "cpu=Q,memory=Q[,pods=N]",
-      description = "Demand on every worker that is not in the manifests (node agents).")
-  String perWorker;
-
-  @Option(names = "--replicas", paramLabel = "peak|declared",
-      description = "peak: an HPA's maxReplicas where one targets the workload (default);"
-          + " declared: spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  @Mixin KubeletOptions kubelet = new KubeletOptions();
 
   @Option(names = "--host-failures", paramLabel = "K",
       description = "Add K whole hosts of headroom (default: 0).")

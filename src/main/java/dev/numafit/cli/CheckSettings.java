@@ -52,16 +52,10 @@ record CheckSettings(
   static CheckSettings check(CheckCommand c) {
     List<String> problems = new ArrayList<>();
     PlanCommand p = new PlanCommand();
-    p.files = c.files;
+    p.manifests = c.manifests;
+    p.kubelet = c.kubelet;
     p.hostProfiles = c.hostProfiles;
     p.worker = c.worker;
-    p.kubeReserved = c.kubeReserved;
-    p.systemReserved = c.systemReserved;
-    p.evictionHard = c.evictionHard;
-    p.maxPods = c.maxPods;
-    p.kubeletReserve = c.kubeletReserve;
-    p.perWorker = c.perWorker;
-    p.replicas = c.replicas;
     p.hostFailures = c.hostFailures;
     p.maxUtilization = c.maxUtilization;
     p.cpuOvercommit = c.cpuOvercommit;
@@ -124,14 +118,14 @@ record CheckSettings(
     if (!c.baseline.isEmpty() && c.baselineGit != null) {
       problems.add("--baseline and --baseline-git cannot be combined: give one baseline");
     }
-    if (c.baselineGit != null && c.files.contains("-")) {
+    if (c.baselineGit != null && c.manifests.files.contains("-")) {
       problems.add("--baseline-git reads the -f paths at a revision; standard input (-f -) has"
           + " none");
     }
     if (c.baselineGit != null && c.baselineGit.isBlank()) {
       problems.add("--baseline-git needs a revision, e.g. origin/main");
     }
-    if (c.baseline.contains("-") && c.files.contains("-")) {
+    if (c.baseline.contains("-") && c.manifests.files.contains("-")) {
       problems.add("standard input can feed either -f or --baseline, not both");
     }
     if (c.failOnExisting && c.baseline.isEmpty() && c.baselineGit == null) {

@@ -1,8 +1,6 @@
 package dev.numafit.cli;
 
 import dev.numafit.report.ReportFormat;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -34,21 +32,7 @@ public final class DemandCommand implements Callable<Integer> {
 
   @Mixin CommonOptions common = new CommonOptions();
 
-  @Option(
-      names = {"-f", "--filename"},
-      paramLabel = "PATH",
-      description =
-          "Manifest file (.yaml, .yml, .json), folder (read recursively) or - for standard input."
-              + " Repeatable.")
-  List<String> files = new ArrayList<>();
-
-  @Option(
-      names = "--replicas",
-      paramLabel = "peak|declared",
-      description =
-          "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
-              + " spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  @Mixin ManifestOptions manifests = new ManifestOptions();
 
   @Option(
       names = "--include-custom",

@@ -29,19 +29,19 @@ public record DemandOptions(
    */
   static DemandOptions check(DemandCommand c) {
     List<String> problems = new ArrayList<>();
-    if (c.files.isEmpty()) {
+    if (c.manifests.files.isEmpty()) {
       problems.add("demand needs at least one -f/--filename (a file, a folder, or - for standard"
           + " input)");
     }
-    if (c.files.stream().filter("-"::equals).count() > 1) {
+    if (c.manifests.files.stream().filter("-"::equals).count() > 1) {
       problems.add("-f - (standard input) can be given only once");
     }
     if (!problems.isEmpty()) {
       throw new UsageException(problems);
     }
     return new DemandOptions(
-        c.files,
-        c.replicas,
+        c.manifests.files,
+        c.manifests.replicas,
         c.includeCustom,
         c.skipInvalid,
         c.common.output,

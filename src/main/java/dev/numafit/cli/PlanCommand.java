@@ -43,13 +43,7 @@ public final class PlanCommand implements Callable<Integer> {
 
   @Mixin CommonOptions common = new CommonOptions();
 
-  @Option(
-      names = {"-f", "--filename"},
-      paramLabel = "PATH",
-      description =
-          "Manifest file (.yaml, .yml, .json), folder (read recursively) or - for standard input."
-              + " Repeatable.")
-  List<String> files = new ArrayList<>();
+  @Mixin ManifestOptions manifests = new ManifestOptions();
 
   @Option(
       names = "--host-profile",
@@ -74,51 +68,7 @@ public final class PlanCommand implements Callable<Integer> {
               + " placed on that host; without, the plan counts workers, not hosts.")
   String worker;
 
-  @Option(
-      names = "--kube-reserved",
-      paramLabel = "cpu=Q,memory=Q",
-      description = "kube-reserved on each worker (default: the tiered scale in docs/shapes.md).")
-  String kubeReserved;
-
-  @Option(
-      names = "--system-reserved",
-      paramLabel = "cpu=Q,memory=Q",
-      description = "system-reserved on each worker (default: none).")
-  String systemReserved;
-
-  @Option(
-      names = "--eviction-hard",
-      paramLabel = "memory.available=Q",
-      description = "Hard eviction threshold (default: memory.available=100Mi).")
-  String evictionHard;
-
-  @Option(
-      names = "--max-pods",
-      paramLabel = "N",
-      description = "The kubelet's maxPods (default: 110).")
-  Integer maxPods;
-
-  @Option(
-      names = "--kubelet-reserve",
-      paramLabel = "none",
-      description =
-          "none: no kube-reserved, system-reserved or eviction threshold (allocatable equals"
-              + " capacity).")
-  String kubeletReserve;
-
-  @Option(
-      names = "--per-worker",
-      paramLabel = "cpu=Q,memory=Q[,pods=N]",
-      description = "Demand on every worker that is not in the manifests (node agents).")
-  String perWorker;
-
-  @Option(
-      names = "--replicas",
-      paramLabel = "peak|declared",
-      description =
-          "peak: an HPA's maxReplicas where one targets the workload (default); declared:"
-              + " spec.replicas.")
-  ReplicasOption replicas = ReplicasOption.PEAK;
+  @Mixin KubeletOptions kubelet = new KubeletOptions();
 
   @Option(
       names = "--host-failures",

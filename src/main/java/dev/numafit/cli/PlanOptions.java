@@ -81,11 +81,11 @@ public record PlanOptions(
    */
   static PlanOptions check(PlanCommand c) {
     List<String> problems = new ArrayList<>();
-    if (c.files.isEmpty()) {
+    if (c.manifests.files.isEmpty()) {
       problems.add("plan needs at least one -f/--filename (a file, a folder, or - for standard"
           + " input)");
     }
-    if (c.files.stream().filter("-"::equals).count() > 1) {
+    if (c.manifests.files.stream().filter("-"::equals).count() > 1) {
       problems.add("-f - (standard input) can be given only once");
     }
     boolean pools = c.pools != null;
@@ -113,35 +113,35 @@ public record PlanOptions(
           });
     }
     boolean noReserve = false;
-    if (c.kubeletReserve != null) {
-      if (c.kubeletReserve.equals("none")) {
+    if (c.kubelet.kubeletReserve != null) {
+      if (c.kubelet.kubeletReserve.equals("none")) {
         noReserve = true;
-      } else if (!c.kubeletReserve.equals("default")) {
-        problems.add("--kubelet-reserve takes none or default, not \"" + c.kubeletReserve + "\"");
+      } else if (!c.kubelet.kubeletReserve.equals("default")) {
+        problems.add("--kubelet-reserve takes none or default, not \"" + c.kubelet.kubeletReserve + "\"");
       }
     }
     if (noReserve
-        && (c.kubeReserved != null || c.systemReserved != null || c.evictionHard != null)) {
+        && (c.kubelet.kubeReserved != null || c.kubelet.systemReserved != null || c.kubelet.evictionHard != null)) {
       problems.add("--kubelet-reserve none cannot be combined with --kube-reserved,"
           + " --system-reserved or --eviction-hard");
     }
     Optional<Resources> kube =
-        c.kubeReserved == null
+        c.kubelet.kubeReserved == null
             ? Optional.empty()
-            : parse("--kube-reserved", c.kubeReserved, problems, false);
+            : parse("--kube-reserved", c.kubelet.kubeReserved, problems, false);
     Resources system =
-        c.systemReserved == null
+        c.kubelet.systemReserved == null
             ? Resources.EMPTY
-            : parse("--system-reserved", c.systemReserved, problems, false)
+            : parse("--system-reserved", c.kubelet.systemReserved, problems, false)
                 .orElse(Resources.EMPTY);
     // The kubelet's defaults (memory.available 100Mi, nodefs.available 10%) hold until
     // --eviction-hard is given; then, as in the kubelet, only the thresholds given apply (K12).
     KubeletReserve defaults = KubeletReserve.defaults();
     Resources eviction = defaults.evictionHard();
     SortedMap<String, BigDecimal> evictionPercent = defaults.evictionHardPercent();
-    if (c.evictionHard != null) {
+    if (c.kubelet.evictionHard != null) {
       try {
-        ResourceArgs.Eviction e = ResourceArgs.parseEviction(c.evictionHard);
+        ResourceArgs.Eviction e = ResourceArgs.parseEviction(c.kubelet.evictionHard);
         eviction = e.amounts();
         evictionPercent = e.percent();
       } catch (IllegalArgumentException ex) {
@@ -149,11 +149,11 @@ public record PlanOptions(
       }
     }
     int maxPods = KubeletReserve.DEFAULT_MAX_PODS;
-    if (c.maxPods != null) {
-      if (c.maxPods < 1) {
-        problems.add("--max-pods must be at least 1, got " + c.maxPods);
+    if (c.kubelet.maxPods != null) {
+      if (c.kubelet.maxPods < 1) {
+        problems.add("--max-pods must be at least 1, got " + c.kubelet.maxPods);
       } else {
-        maxPods = c.maxPods;
+        maxPods = c.kubelet.maxPods;
       }
     }
     KubeletReserve reserve =
@@ -161,9 +161,9 @@ public record PlanOptions(
             ? KubeletReserve.none(maxPods)
             : new KubeletReserve(kube, system, eviction, maxPods, evictionPercent);
     Resources perWorker =
-        c.perWorker == null
+        c.kubelet.perWorker == null
             ? Resources.EMPTY
-            : parse("--per-worker", c.perWorker, problems, true).orElse(Resources.EMPTY);
+            : parse("--per-worker", c.kubelet.perWorker, problems, true).orElse(Resources.EMPTY);
     if (c.hostFailures < 0) {
       problems.add("--host-failures must be 0 or more, got " + c.hostFailures);
     }
@@ -218,12 +218,12 @@ public record PlanOptions(
       throw new UsageException(problems);
     }
     return new PlanOptions(
-        c.files,
+        c.manifests.files,
         c.hostProfiles,
         worker,
         reserve,
         perWorker,
-        c.replicas,
+        c.manifests.replicas,
         c.hostFailures,
         c.maxUtilization,
         c.growth,

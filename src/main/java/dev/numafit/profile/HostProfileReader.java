@@ -66,12 +66,13 @@ public final class HostProfileReader {
   private static final Map<String, int[]> JEDEC_SPEEDS =
       new TreeMap<>(Map.of("DDR4", new int[] {1600, 3200}, "DDR5", new int[] {4800, 8800}));
 
-  /** Reads and validates one profile file. */
-  public ProfileLoad read(Path file) throws InputException {
-    String name = file.toString();
-    String text;
+  /**
+   * The whole of {@code file} as UTF-8 text; a missing, unreadable or undecodable file is one
+   * error at line 0 of {@code name}. Shared by the readers of this package's files.
+   */
+  static String readText(Path file, String name) throws InputException {
     try {
-      text = Files.readString(file);
+      return Files.readString(file);
     } catch (NoSuchFileException e) {
       throw new InputException(Diagnostic.error(new SourceRef(name, 0), "no such file"));
     } catch (CharacterCodingException e) {
@@ -81,6 +82,12 @@ public final class HostProfileReader {
       throw new InputException(
           Diagnostic.error(new SourceRef(name, 0), "cannot read the file: " + e.getMessage()));
     }
+  }
+
+  /** Reads and validates one profile file. */
+  public ProfileLoad read(Path file) throws InputException {
+    String name = file.toString();
+    String text = readText(file, name);
     return parse(name, text);
   }
 

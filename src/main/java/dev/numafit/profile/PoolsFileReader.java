@@ -11,11 +11,8 @@ import dev.numafit.profile.YamlTree.Node;
 import dev.numafit.profile.YamlTree.Scalar;
 import dev.numafit.resource.Resources;
 import io.fabric8.kubernetes.api.model.Quantity;
-import java.io.IOException;
 import java.math.BigDecimal;
-import java.nio.charset.CharacterCodingException;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -64,18 +61,7 @@ public final class PoolsFileReader {
   /** Reads and checks the file. */
   public List<PoolSpec> read(Path file) throws InputException {
     String name = file.toString();
-    String text;
-    try {
-      text = Files.readString(file);
-    } catch (NoSuchFileException e) {
-      throw new InputException(Diagnostic.error(new SourceRef(name, 0), "no such file"));
-    } catch (CharacterCodingException e) {
-      throw new InputException(
-          Diagnostic.error(new SourceRef(name, 0), "expected UTF-8 text, got undecodable bytes"));
-    } catch (IOException e) {
-      throw new InputException(
-          Diagnostic.error(new SourceRef(name, 0), "cannot read the file: " + e.getMessage()));
-    }
+    String text = HostProfileReader.readText(file, name);
     Path base = file.toAbsolutePath().getParent();
     return parse(name, text, base == null ? Path.of("") : base);
   }

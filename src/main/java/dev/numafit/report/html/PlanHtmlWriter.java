@@ -465,32 +465,41 @@ public final class PlanHtmlWriter implements ReportWriter<PlanReport> {
     sb.append("</tbody></table>\n");
   }
 
+  /**
+   * The table beside a fill histogram: per tenth of fill (0–10% … 90–100%), how many workers or
+   * nodes reach it in each shown resource. {@code caption} is plain text of our own (no input).
+   */
+  static void histogramTable(StringBuilder sb, String caption, List<WorkerFill> fills) {
+    sb.append("<table class=\"histogram\">\n<caption>").append(caption)
+        .append("</caption>\n<thead><tr><th scope=\"col\">Fill</th>");
+    for (String r : WorkerFill.SHOWN) {
+      sb.append("<th scope=\"col\">").append(r).append("</th>");
+    }
+    sb.append("</tr></thead>\n<tbody>\n");
+    List<int[]> counts = new ArrayList<>();
+    for (String r : WorkerFill.SHOWN) {
+      counts.add(WorkerFill.histogram(fills, r));
+    }
+    for (int b = 0; b < 10; b++) {
+      sb.append("<tr><th scope=\"row\">").append(b * 10).append("–").append((b + 1) * 10)
+          .append("%</th>");
+      for (int[] c : counts) {
+        sb.append("<td class=\"num\">").append(c[b]).append("</td>");
+      }
+      sb.append("</tr>\n");
+    }
+    sb.append("</tbody></table>");
+  }
+
   private static void fill(StringBuilder sb, List<WorkerFill> fills, int i) {
     sb.append("<h3>Worker fill</h3>\n");
     boolean histogram = fills.size() > WorkerFill.HISTOGRAM_ABOVE;
     if (histogram) {
       sb.append("<div class=\"pair\"><figure>")
           .append(Charts.histogram("p" + i + "-hist", fills))
-          .append("<figcaption>Workers counted by fill, per resource.</figcaption></figure>\n")
-          .append("<table class=\"histogram\">\n<caption>Workers by fill</caption>\n<thead><tr>")
-          .append("<th scope=\"col\">Fill</th>");
-      for (String r : WorkerFill.SHOWN) {
-        sb.append("<th scope=\"col\">").append(r).append("</th>");
-      }
-      sb.append("</tr></thead>\n<tbody>\n");
-      List<int[]> counts = new ArrayList<>();
-      for (String r : WorkerFill.SHOWN) {
-        counts.add(WorkerFill.histogram(fills, r));
-      }
-      for (int b = 0; b < 10; b++) {
-        sb.append("<tr><th scope=\"row\">").append(b * 10).append("–").append((b + 1) * 10)
-            .append("%</th>");
-        for (int[] c : counts) {
-          sb.append("<td class=\"num\">").append(c[b]).append("</td>");
-        }
-        sb.append("</tr>\n");
-      }
-      sb.append("</tbody></table></div>\n");
+          .append("<figcaption>Workers counted by fill, per resource.</figcaption></figure>\n");
+      histogramTable(sb, "Workers by fill", fills);
+      sb.append("</div>\n");
     } else {
       sb.append("<figure>").append(Charts.fill("p" + i + "-fill", fills))
           .append("<figcaption>Striped: DaemonSets and per-worker demand, on every worker; solid:")

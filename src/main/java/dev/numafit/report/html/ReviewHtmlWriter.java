@@ -252,26 +252,9 @@ public final class ReviewHtmlWriter implements ReportWriter<Review> {
     if (histogram) {
       sb.append("<div class=\"pair\"><figure>")
           .append(Charts.histogram(id, fills, "Nodes by fill (" + key + ")", "nodes"))
-          .append("<figcaption>Nodes counted by fill, per resource.</figcaption></figure>\n")
-          .append("<table class=\"histogram\">\n<caption>Nodes by fill (").append(key)
-          .append(")</caption>\n<thead><tr><th scope=\"col\">Fill</th>");
-      for (String res : WorkerFill.SHOWN) {
-        sb.append("<th scope=\"col\">").append(res).append("</th>");
-      }
-      sb.append("</tr></thead>\n<tbody>\n");
-      List<int[]> counts = new ArrayList<>();
-      for (String res : WorkerFill.SHOWN) {
-        counts.add(WorkerFill.histogram(fills, res));
-      }
-      for (int b = 0; b < 10; b++) {
-        sb.append("<tr><th scope=\"row\">").append(b * 10).append("–").append((b + 1) * 10)
-            .append("%</th>");
-        for (int[] c : counts) {
-          sb.append("<td class=\"num\">").append(c[b]).append("</td>");
-        }
-        sb.append("</tr>\n");
-      }
-      sb.append("</tbody></table></div>\n<details><summary>Every node</summary>\n");
+          .append("<figcaption>Nodes counted by fill, per resource.</figcaption></figure>\n");
+      PlanHtmlWriter.histogramTable(sb, "Nodes by fill (" + key + ")", fills);
+      sb.append("</div>\n<details><summary>Every node</summary>\n");
     } else {
       sb.append("<figure>")
           .append(Charts.fill(id, fills, "Node fill (" + key + ")",
