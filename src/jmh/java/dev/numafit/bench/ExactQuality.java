@@ -7,7 +7,6 @@ import dev.numafit.pack.VectorPacker;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -73,13 +72,9 @@ public final class ExactQuality {
         if (n > maxN) {
           continue;
         }
-        long[][] items;
-        long[] capacity;
-        {
-          Object[] read = read(root.resolve(c[fileCol]));
-          items = (long[][]) read[0];
-          capacity = (long[]) read[1];
-        }
+        PackingQuality.Instance instance = PackingQuality.Instance.read(root.resolve(c[fileCol]));
+        long[][] items = instance.items();
+        long[] capacity = instance.capacity();
         int known = Integer.parseInt(c[knownCol]);
         boolean proven = Boolean.parseBoolean(c[provenCol]);
         String group = c[setCol] + " n=" + n;
@@ -103,7 +98,7 @@ public final class ExactQuality {
         if (heuristic.bins() <= known) {
           s.heuristicReached++;
         }
-        boolean feasible = feasible(r.packing(), items, capacity);
+        boolean feasible = PackingQuality.feasible(r.packing(), instance);
         if (!feasible
             || (proven && bins < known)
             || (proven && r.provedOptimal() && bins != known)
@@ -144,40 +139,5 @@ public final class ExactQuality {
         s.instances == 0 ? 0 : s.nodes / s.instances, s.maxNodes,
         s.instances == 0 ? 0 : s.nanos / 1e6 / s.instances, s.maxNanos / 1e6,
         s.errors > 0 ? "  ERRORS " + s.errors : "");
-  }
-
-  private static boolean feasible(Packing p, long[][] items, long[] capacity) {
-    for (long[] load : p.loads(items)) {
-      for (int k = 0; k < capacity.length; k++) {
-        if (load[k] > capacity[k]) {
-          return false;
-        }
-      }
-    }
-    return true;
-  }
-
-  /** A .vbp file (format in ../shared/bench/SOURCES.md): {items, capacity}. */
-  private static Object[] read(Path file) throws IOException {
-    String[] tok = Files.readString(file).trim().split("\\s+");
-    int p = 0;
-    int d = Integer.parseInt(tok[p++]);
-    long[] cap = new long[d];
-    for (int k = 0; k < d; k++) {
-      cap[k] = Long.parseLong(tok[p++]);
-    }
-    int m = Integer.parseInt(tok[p++]);
-    List<long[]> items = new ArrayList<>();
-    for (int i = 0; i < m; i++) {
-      long[] v = new long[d];
-      for (int k = 0; k < d; k++) {
-        v[k] = Long.parseLong(tok[p++]);
-      }
-      int copies = Integer.parseInt(tok[p++]);
-      for (int r = 0; r < copies; r++) {
-        items.add(v);
-      }
-    }
-    return new Object[] {items.toArray(new long[0][]), cap};
   }
 }

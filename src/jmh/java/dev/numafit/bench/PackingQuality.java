@@ -280,7 +280,8 @@ public final class PackingQuality {
     };
   }
 
-  private static boolean feasible(Packing p, Instance in) {
+  /** Every item in one non-empty bin and no bin over capacity in any dimension. */
+  static boolean feasible(Packing p, Instance in) {
     int[] seen = new int[p.bins()];
     for (int i = 0; i < p.items(); i++) {
       seen[p.binOf(i)]++;
@@ -299,7 +300,7 @@ public final class PackingQuality {
   }
 
   /** One instance: .vbp (vector) or .txt (1-D), formats in ../shared/bench/SOURCES.md. */
-  private record Instance(long[][] items, long[] capacity) {
+  record Instance(long[][] items, long[] capacity) {
     static Instance read(Path file) throws IOException {
       String[] tok = Files.readString(file).trim().split("\\s+");
       int p = 0;
