@@ -75,30 +75,4 @@ public record Review(
     fillAfter = List.copyOf(fillAfter);
   }
 
-  /** A review without the node-by-node fill (reports then draw no fill pictures). */
-  public Review(
-      String pool,
-      DemandSource from,
-      int nodesBefore,
-      int nodesAfter,
-      Optional<String> shapeAfter,
-      Optional<String> hostProfile,
-      boolean fits,
-      List<PendingPod> pending,
-      List<SpanningNode> spanning,
-      SortedMap<String, Double> utilizationBefore,
-      SortedMap<String, Double> utilizationAfter,
-      List<Removal> removals,
-      DrainPlan drain,
-      OptionalInt nodesNeeded,
-      OptionalInt lowerBound,
-      List<String> tooLarge,
-      Optional<HostFailureCheck> hostFailures,
-      int podsConsidered,
-      Resources roomPerNode,
-      List<String> warnings) {
-    this(pool, from, nodesBefore, nodesAfter, shapeAfter, hostProfile, fits, pending, spanning,
-        utilizationBefore, utilizationAfter, removals, drain, nodesNeeded, lowerBound, tooLarge,
-        hostFailures, podsConsidered, roomPerNode, warnings, List.of(), List.of());
-  }
 }

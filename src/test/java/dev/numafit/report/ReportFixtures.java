@@ -126,7 +126,9 @@ final class ReportFixtures {
             : Optional.empty(),
         List.of("ephemeral-storage"),
         List.of("one virtual socket with all 32 vCPUs, so the guest sees one NUMA node"),
-        List.of());
+        List.of(),
+        OptionalInt.empty(),
+        Optional.empty());
   }
 
   static Plan workerPlan() {
@@ -147,7 +149,9 @@ final class ReportFixtures {
         Optional.empty(),
         List.of(),
         List.of(),
-        List.of());
+        List.of(),
+        OptionalInt.empty(),
+        Optional.empty());
   }
 
   static PlanReport planReport() {
