@@ -25,7 +25,7 @@ status=0
 for t in $targets; do
   start=$(date +%s)
   rc=0
-  JAZZER_FUZZ=1 mvn -B -o -q surefire:test -Dtest="$t" -DreuseForks=false \
+  JAZZER_FUZZ=1 mvn -B -q surefire:test -Dtest="$t" -DreuseForks=false \
     -Dsurefire.failIfNoSpecifiedTests=false \
     -DargLine="-Xmx512m -Djunit.jupiter.execution.timeout.mode=disabled \
 -Djazzer.internal.arg.0=fuzz -Djazzer.internal.arg.1=-max_total_time=${seconds}" \
