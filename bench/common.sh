@@ -2,8 +2,8 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 build_bench() {
-  mvn -B -o -q -Pbench compile
-  mvn -B -o -q -Pbench dependency:build-classpath -Dmdep.outputFile=target/bench-classpath.txt \
+  mvn -B -q -Pbench compile
+  mvn -B -q -Pbench dependency:build-classpath -Dmdep.outputFile=target/bench-classpath.txt \
     -Dmdep.includeScope=runtime >/dev/null
   CP="target/classes:$(cat target/bench-classpath.txt)"
 }

@@ -123,9 +123,13 @@ public final class PackingQuality {
         }
         List<String[]> rows = e.getValue();
         int step = rows.size() > 300 ? everyLarge : 1;
-        Stats[] half = {new Stats(), new Stats()};
+        // Halves by position in the whole set; rows per published subset where the set has them.
+        Map<String, Stats[]> halves = new TreeMap<>();
+        int nameCol = header.indexOf("name");
         for (int r = 0; r < rows.size(); r += step) {
           String[] c = rows.get(r);
+          Stats[] half = halves.computeIfAbsent(subsetOf(e.getKey(), c[nameCol]),
+              k -> new Stats[] {new Stats(), new Stats()});
           Instance in = Instance.read(root.resolve(c[fileCol]));
           int known = Integer.parseInt(c[knownCol]);
           boolean proven = Boolean.parseBoolean(c[provenCol]);
@@ -174,8 +178,10 @@ public final class PackingQuality {
             }
           }
         }
-        System.out.println(half[0].row(e.getKey(), "even"));
-        System.out.println(half[1].row(e.getKey(), "odd"));
+        for (Map.Entry<String, Stats[]> h : halves.entrySet()) {
+          System.out.println(h.getValue()[0].row(h.getKey(), "even"));
+          System.out.println(h.getValue()[1].row(h.getKey(), "odd"));
+        }
       }
     }
     System.out.println("inst: instances; reach / ffd: bins <= known value with the packer / with"
@@ -187,6 +193,21 @@ public final class PackingQuality {
           + " (cpu, memory, pods, third); the pods column changed the count on "
           + planDimsChanged);
     }
+  }
+
+  /**
+   * The published subset an instance belongs to, by its name: Scholl's three data sets are told
+   * apart by their naming schemes (set 1 "NxCxWx_x", set 2 "NxWxBxRx", set 3 "HARDx"); other sets
+   * have one row.
+   */
+  static String subsetOf(String set, String name) {
+    if (!set.equals("scholl")) {
+      return set;
+    }
+    if (name.startsWith("HARD")) {
+      return "scholl_3";
+    }
+    return name.matches("N\\dW\\dB\\dR\\d") ? "scholl_2" : "scholl_1";
   }
 
   /**

@@ -3,6 +3,7 @@ package dev.numafit.pack;
 import java.util.Arrays;
 import java.util.HashMap;
 import java.util.Map;
+import java.util.SplittableRandom;
 
 /**
  * Packs vector items (pods: demand per resource) into as few equal bins (workers) as it can find.
@@ -288,6 +289,27 @@ public final class VectorPacker {
         PoolSearch pool = new PoolSearch(in.n, in.d, in.cap, w, best, budget - steps);
         best = pool.run(lowerBound);
         steps += pool.steps();
+      }
+      bestBins = binsOf(best);
+      if (in.d == 1 && bestBins > lowerBound) {
+        // One dimension: bin completion, with a node allowance as large as the step budget.
+        long[] sizes = new long[in.n];
+        for (int i = 0; i < in.n; i++) {
+          sizes[i] = in.w[in.typeOfItem[i]];
+        }
+        long nodesLeft = budget;
+        SplittableRandom random = new SplittableRandom(PoolSearch.SEED);
+        while (bestBins > lowerBound && nodesLeft > 0) {
+          BinCompletion.Result r =
+              BinCompletion.search(sizes, in.cap[0], bestBins - 1, nodesLeft, random);
+          steps += r.nodes();
+          nodesLeft -= r.nodes();
+          if (r.binOf() == null) {
+            break;
+          }
+          best = r.binOf();
+          bestBins = binsOf(best);
+        }
       }
       return new Packing(binsOf(best), best, steps, lowerBound);
     }
