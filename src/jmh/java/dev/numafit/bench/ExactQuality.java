@@ -59,25 +59,17 @@ public final class ExactQuality {
         System.out.println("missing " + index + ", skipped");
         continue;
       }
-      List<String> lines = Files.readAllLines(index);
-      List<String> header = List.of(lines.get(0).split(","));
-      int setCol = header.indexOf("set");
-      int fileCol = header.indexOf("file");
-      int nCol = header.indexOf("n_items");
-      int knownCol = header.indexOf("known_value");
-      int provenCol = header.indexOf("proven_optimal");
-      for (String line : lines.subList(1, lines.size())) {
-        String[] c = line.split(",", -1);
-        int n = Integer.parseInt(c[nCol]);
+      for (IndexRow row : IndexRow.read(index)) {
+        int n = row.items();
         if (n > maxN) {
           continue;
         }
-        PackingQuality.Instance instance = PackingQuality.Instance.read(root.resolve(c[fileCol]));
+        PackingQuality.Instance instance = PackingQuality.Instance.read(root.resolve(row.file()));
         long[][] items = instance.items();
         long[] capacity = instance.capacity();
-        int known = Integer.parseInt(c[knownCol]);
-        boolean proven = Boolean.parseBoolean(c[provenCol]);
-        String group = c[setCol] + " n=" + n;
+        int known = row.known();
+        boolean proven = row.proven();
+        String group = row.set() + " n=" + n;
         Stats s = byGroup.computeIfAbsent(group, k -> new Stats());
         long t0 = System.nanoTime();
         Packing heuristic = new VectorPacker().pack(items, capacity);
@@ -104,11 +96,11 @@ public final class ExactQuality {
             || (proven && r.provedOptimal() && bins != known)
             || LowerBound.of(items, capacity) > bins) {
           s.errors++;
-          System.out.println("ERROR " + c[fileCol] + ": bins " + bins + ", proved "
+          System.out.println("ERROR " + row.file() + ": bins " + bins + ", proved "
               + r.provedOptimal() + ", known " + known + (feasible ? "" : ", over capacity"));
         }
         if (!r.provedOptimal()) {
-          System.out.println("  not proved: " + c[fileCol] + " bins " + bins + " (heuristic "
+          System.out.println("  not proved: " + row.file() + " bins " + bins + " (heuristic "
               + heuristic.bins() + ", lower bound " + r.lowerBound() + ", known " + known
               + (proven ? " proven" : " best known") + ")");
         }

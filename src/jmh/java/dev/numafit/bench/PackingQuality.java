@@ -106,33 +106,25 @@ public final class PackingQuality {
         System.out.println("missing " + index + ", skipped");
         continue;
       }
-      List<String> lines = Files.readAllLines(index);
-      List<String> header = List.of(lines.get(0).split(","));
-      int setCol = header.indexOf("set");
-      int fileCol = header.indexOf("file");
-      int knownCol = header.indexOf("known_value");
-      int provenCol = header.indexOf("proven_optimal");
-      Map<String, List<String[]>> rowsBySet = new TreeMap<>();
-      for (String line : lines.subList(1, lines.size())) {
-        String[] c = line.split(",", -1);
-        rowsBySet.computeIfAbsent(c[setCol], k -> new ArrayList<>()).add(c);
+      Map<String, List<IndexRow>> rowsBySet = new TreeMap<>();
+      for (IndexRow row : IndexRow.read(index)) {
+        rowsBySet.computeIfAbsent(row.set(), k -> new ArrayList<>()).add(row);
       }
-      for (Map.Entry<String, List<String[]>> e : rowsBySet.entrySet()) {
+      for (Map.Entry<String, List<IndexRow>> e : rowsBySet.entrySet()) {
         if (!sets.isEmpty() && !sets.contains(e.getKey())) {
           continue;
         }
-        List<String[]> rows = e.getValue();
+        List<IndexRow> rows = e.getValue();
         int step = rows.size() > 300 ? everyLarge : 1;
         // Halves by position in the whole set; rows per published subset where the set has them.
         Map<String, Stats[]> halves = new TreeMap<>();
-        int nameCol = header.indexOf("name");
         for (int r = 0; r < rows.size(); r += step) {
-          String[] c = rows.get(r);
-          Stats[] half = halves.computeIfAbsent(subsetOf(e.getKey(), c[nameCol]),
+          IndexRow row = rows.get(r);
+          Stats[] half = halves.computeIfAbsent(subsetOf(e.getKey(), row.name()),
               k -> new Stats[] {new Stats(), new Stats()});
-          Instance in = Instance.read(root.resolve(c[fileCol]));
-          int known = Integer.parseInt(c[knownCol]);
-          boolean proven = Boolean.parseBoolean(c[provenCol]);
+          Instance in = Instance.read(root.resolve(row.file()));
+          int known = row.known();
+          boolean proven = row.proven();
           Stats s = half[r % 2];
           long t0 = System.nanoTime();
           Packing ffd = new VectorPacker(0).pack(in.items, in.capacity);
@@ -147,7 +139,7 @@ public final class PackingQuality {
           int lb = LowerBound.of(in.items, in.capacity);
           if (!feasible || (proven && p.bins() < known) || (proven && lb > known)) {
             s.errors++;
-            System.out.println("ERROR " + c[fileCol] + ": bins " + p.bins() + ", lower bound " + lb
+            System.out.println("ERROR " + row.file() + ": bins " + p.bins() + ", lower bound " + lb
                 + ", known " + known + (feasible ? "" : ", over capacity"));
           }
           if (p.bins() <= known) {
@@ -168,19 +160,25 @@ public final class PackingQuality {
             if (viaPlan == direct) {
               planEqual++;
             } else {
-              System.out.println("PLAN DIFFERS " + c[fileCol] + ": plan " + viaPlan
+              System.out.println("PLAN DIFFERS " + row.file() + ": plan " + viaPlan
                   + " workers, packer on the same dimensions " + direct + " bins");
             }
             if (direct != p.bins()) {
               planDimsChanged++;
-              System.out.println("PODS COLUMN CHANGES " + c[fileCol] + ": " + p.bins() + " bins"
+              System.out.println("PODS COLUMN CHANGES " + row.file() + ": " + p.bins() + " bins"
                   + " without, " + direct + " with the non-binding pods limit");
             }
           }
         }
         for (Map.Entry<String, Stats[]> h : halves.entrySet()) {
-          System.out.println(h.getValue()[0].row(h.getKey(), "even"));
-          System.out.println(h.getValue()[1].row(h.getKey(), "odd"));
+          // A half with no instance (an even --every-large step keeps even positions only) is
+          // left out rather than printed as NaN.
+          if (h.getValue()[0].instances > 0) {
+            System.out.println(h.getValue()[0].row(h.getKey(), "even"));
+          }
+          if (h.getValue()[1].instances > 0) {
+            System.out.println(h.getValue()[1].row(h.getKey(), "odd"));
+          }
         }
       }
     }
