@@ -34,6 +34,9 @@ public final class VectorPacker {
    */
   public static final long DEFAULT_STEP_BUDGET = 2_000_000L;
 
+  /** Seed of the free-room walk's random stream (one above the local search's, fixed). */
+  static final long WALK_SEED = PoolSearch.SEED + 1;
+
   private final long stepBudget;
 
   /** A packer with {@link #DEFAULT_STEP_BUDGET}. */
@@ -292,11 +295,16 @@ public final class VectorPacker {
       }
       bestBins = binsOf(best);
       if (in.d == 1 && bestBins > lowerBound) {
-        // One dimension: bin completion, with a node allowance as large as the step budget.
         long[] sizes = new long[in.n];
         for (int i = 0; i < in.n; i++) {
           sizes[i] = in.w[in.typeOfItem[i]];
         }
+        // One dimension: a walk of the free room, then bin completion, each with an allowance as
+        // large as the step budget.
+        RoomWalk walk = new RoomWalk(sizes, in.cap[0], best, new SplittableRandom(WALK_SEED));
+        best = walk.run(lowerBound, budget);
+        steps += walk.steps();
+        bestBins = binsOf(best);
         long nodesLeft = budget;
         SplittableRandom random = new SplittableRandom(PoolSearch.SEED);
         while (bestBins > lowerBound && nodesLeft > 0) {
