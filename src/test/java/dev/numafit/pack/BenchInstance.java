@@ -56,4 +56,13 @@ record BenchInstance(String name, long[][] items, long[] capacity) {
     }
     return true;
   }
+
+  /** The sizes of a one-dimensional instance. */
+  long[] sizes() {
+    long[] s = new long[items.length];
+    for (int i = 0; i < s.length; i++) {
+      s[i] = items[i][0];
+    }
+    return s;
+  }
 }

@@ -23,7 +23,7 @@ class BinCompletionTest {
     // bins by construction, each bin three items filling its 1000 exactly. The local search
     // alone stops at 21 bins on it (PackingQualityFloorTest), so this is the search's own work.
     BenchInstance b = BenchInstance.load("Falkenauer_t60_00.txt");
-    long[] sizes = sizes(b);
+    long[] sizes = b.sizes();
     BinCompletion.Result r = BinCompletion.search(sizes, 1000, 20, 2_000_000, random());
     assertNotNull(r.binOf(), "no packing into 20 bins within the limit");
     long[] load = loads(sizes, r.binOf(), 20);
@@ -64,7 +64,7 @@ class BinCompletionTest {
 
   @Test
   void search_sameInput_sameAnswer() throws Exception {
-    long[] sizes = sizes(BenchInstance.load("Falkenauer_u120_08.txt"));
+    long[] sizes = BenchInstance.load("Falkenauer_u120_08.txt").sizes();
     BinCompletion.Result a = BinCompletion.search(sizes, 150, 50, 300_000, random());
     BinCompletion.Result b = BinCompletion.search(sizes, 150, 50, 300_000, random());
     assertEquals(a.nodes(), b.nodes());
@@ -135,14 +135,6 @@ class BinCompletionTest {
       }
     }
     return false;
-  }
-
-  private static long[] sizes(BenchInstance b) {
-    long[] s = new long[b.items().length];
-    for (int i = 0; i < s.length; i++) {
-      s[i] = b.items()[i][0];
-    }
-    return s;
   }
 
   private static long[] loads(long[] sizes, int[] binOf, int bins) {

@@ -25,7 +25,7 @@ class RoomWalkTest {
   void run_fromFirstFitDecreasing_reachesProvenOptimum(String file, int ffdBins, int optimum)
       throws Exception {
     BenchInstance b = BenchInstance.load(file);
-    long[] sizes = sizes(b);
+    long[] sizes = b.sizes();
     Packing ffd = new VectorPacker(0).pack(b.items(), b.capacity());
     assertEquals(ffdBins, ffd.bins());
     RoomWalk walk = new RoomWalk(sizes, b.capacity()[0], ffd.binOfItem(), random());
@@ -83,14 +83,6 @@ class RoomWalkTest {
       assertTrue(load[b] <= cap, "bin " + b + " over capacity: " + load[b]);
     }
     return bins;
-  }
-
-  private static long[] sizes(BenchInstance b) {
-    long[] s = new long[b.items().length];
-    for (int i = 0; i < s.length; i++) {
-      s[i] = b.items()[i][0];
-    }
-    return s;
   }
 
   private static SplittableRandom random() {
