@@ -43,6 +43,13 @@ import tools.jackson.core.JsonToken;
  * profile.
  */
 public final class HostProfileReader {
+  /**
+   * Largest size the reader accepts for one amount of memory (a DIMM, a node, a reserve, the
+   * hugepages of one size): 1Pi. Far above any host's, and small enough that up to 8,192 such
+   * amounts add up within a long (the sums over DIMMs, channels and nodes).
+   */
+  static final long MAX_SIZE_BYTES = 1L << 50;
+
   /** The only apiVersion this reader accepts. */
   public static final String API_VERSION = "numafit.dev/v1alpha1";
 
@@ -488,6 +495,10 @@ public final class HostProfileReader {
             error(line, where, "expected a size >= 0 such as 64Gi, got " + s.text());
             return null;
           }
+          if (bytes.compareTo(BigDecimal.valueOf(MAX_SIZE_BYTES)) > 0) {
+            error(line, where, "expected a size of at most 1Pi, got " + s.text());
+            return null;
+          }
           try {
             return bytes.longValueExact();
           } catch (ArithmeticException e) {
@@ -605,7 +616,13 @@ public final class HostProfileReader {
         Integer count = wholeValue(pe.value(), where, 0, "expected a whole number >= 0 of pages",
             pe.keyLine());
         if (count != null) {
-          out.put("hugepages-" + pe.key(), Math.multiplyExact(pageSize.getAsLong(), count));
+          long size = pageSize.getAsLong();
+          if (count > 0 && size > MAX_SIZE_BYTES / count) {
+            error(pe.keyLine(), where, "expected pages adding up to at most 1Pi, got " + count
+                + " pages of " + pe.key());
+            continue;
+          }
+          out.put("hugepages-" + pe.key(), size * count);
         }
       }
       return Resources.of(out);

@@ -226,6 +226,25 @@ class HostProfileReaderTest {
   }
 
   @Test
+  void read_hugepagesBeyondOnePebibyte_errorNotOverflow() {
+    // Found by fuzzing: 512 pages of 2Ei overflowed a long and escaped as an ArithmeticException.
+    assertEquals(
+        List.of("t.yaml:15: error: spec.node.hugepages.2Ei: expected pages adding up to at most"
+            + " 1Pi, got 512 pages of 2Ei"),
+        errors(BASE.replace("    channels: [[32Gi], [32Gi]]\n",
+            "    channels: [[32Gi], [32Gi]]\n    hugepages:\n      2Ei: 512\n")));
+  }
+
+  @Test
+  void read_dimmBeyondOnePebibyte_error() {
+    // Eight such DIMMs would already overflow a long when the node's memory is summed.
+    assertEquals(
+        List.of("t.yaml:13: error: spec.node.channels[0][0]: expected a size of at most 1Pi, got"
+            + " 2Ei"),
+        errors(BASE.replace("channels: [[32Gi], [32Gi]]", "channels: [[2Ei], [32Gi]]")));
+  }
+
+  @Test
   void read_reserveLargerThanHost_error() {
     assertEquals(
         List.of("t.yaml:15: error: spec.hypervisor.reservedMemory: expected less than the host's"
