@@ -183,6 +183,15 @@ final class PodSpecs {
               + "\" is larger than a Kubernetes quantity can hold (at most 2^63-1)");
       return Optional.empty();
     }
+    if (v.signum() > 0 && v.compareTo(NANO) < 0) {
+      // Below 1n the API server rounds up to 1n; taken here directly, because rounding a value
+      // such as 9e-823336003 (fabric8 reads "93367320T-823336003" so) would first build a
+      // number with hundreds of millions of digits. Found by fuzzing.
+      return Optional.of(NANO);
+    }
     return Optional.of(v);
   }
+
+  /** 1n, the finest amount the API server keeps. */
+  private static final BigDecimal NANO = BigDecimal.ONE.movePointLeft(9);
 }

@@ -16,7 +16,9 @@ import java.util.SplittableRandom;
  * complete it. A completion is a multiset of item sizes (items of equal size are never told
  * apart, so no two branches differ only by swapping equal items) that leaves at most the waste
  * still allowed: m bins of capacity C holding items that sum to S may leave at most m·C − S unused
- * in all. Only maximal completions are tried (no item left over would still fit in the bin): an
+ * in all. While completions are listed, a branch ends as soon as even the largest items that could
+ * still fit (at most room ÷ smallest size left of them) cannot bring the waste within that
+ * allowance. Only maximal completions are tried (no item left over would still fit in the bin): an
  * item moved into a bin's free room from a later bin never costs a bin, so nothing is lost (the
  * dominance idea of bin-completion searches, written here from the idea). Completions are tried
  * fullest first. A state of the search (the items left and the bins left) that was already
@@ -247,6 +249,11 @@ final class BinCompletion {
   private int[] chosen = new int[16];
   private int chosenCount;
   private List<int[]> found;
+  /** The smallest size left when a bin's completions are listed (0 when none is left). */
+  private long smallest;
+
+  /** Most further items for which the fill bound below is computed (a walk over that many). */
+  static final long MAX_MORE = 64;
 
   /**
    * The maximal completions of a bin with {@code room} left that waste at most {@code wasteLeft},
@@ -260,6 +267,13 @@ final class BinCompletion {
     suffix[distinct] = 0;
     for (int s = distinct - 1; s >= from; s--) {
       suffix[s] = suffix[s + 1] + cnt[s] * val[s];
+    }
+    smallest = 0;
+    for (int s = distinct - 1; s >= from; s--) {
+      if (cnt[s] > 0) {
+        smallest = val[s];
+        break;
+      }
     }
     found = new ArrayList<>();
     chosenCount = 0;
@@ -278,6 +292,23 @@ final class BinCompletion {
     }
     while (s < distinct && (cnt[s] == 0 || val[s] > room)) {
       s++;
+    }
+    if (s < distinct && room > wasteLeft && smallest > 0 && room / smallest <= MAX_MORE) {
+      // At most room / smallest more items fit; the largest that many from here on bound what
+      // the bin can still take.
+      long most = room / smallest;
+      long fill = 0;
+      long count = 0;
+      int t = s;
+      for (; t < distinct && count < most; t++) {
+        long take = Math.min(cnt[t], most - count);
+        fill += take * val[t];
+        count += take;
+      }
+      nodes += (t - s) / 8;
+      if (room - Math.min(fill, room) > wasteLeft) {
+        return;
+      }
     }
     if (s == distinct) {
       if (room <= wasteLeft && maximal(room)) {
