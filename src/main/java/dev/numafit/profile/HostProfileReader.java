@@ -50,6 +50,13 @@ public final class HostProfileReader {
    */
   static final long MAX_SIZE_BYTES = 1L << 50;
 
+  /**
+   * Most NUMA nodes a profile may describe in all: 1,024, the largest node count a common Linux
+   * kernel build supports (NODES_SHIFT 10; from memory), so a typing slip cannot make the reader
+   * build millions of nodes.
+   */
+  static final int MAX_NODES = 1_024;
+
   /** The only apiVersion this reader accepts. */
   public static final String API_VERSION = "numafit.dev/v1alpha1";
 
@@ -210,7 +217,18 @@ public final class HostProfileReader {
         template = nodeDef(nodeMap, "spec.node", spec.entries().get("node").keyLine(), false);
       }
 
-      int nodeCount = sockets != null && nps != null ? sockets * nps : -1;
+      int nodeCount = -1;
+      if (sockets != null && nps != null) {
+        long count = (long) sockets * nps;
+        if (count > MAX_NODES) {
+          error(spec.entries().get("nodesPerSocket").keyLine(), "spec.nodesPerSocket",
+              "expected at most " + MAX_NODES
+              + " NUMA nodes in all (sockets × nodesPerSocket), got " + sockets + " × " + nps
+              + " = " + count);
+        } else {
+          nodeCount = (int) count;
+        }
+      }
       Map<Integer, NodeDef> exceptions = new TreeMap<>();
       Entry nodesEntry = spec.entries().get("nodes");
       if (nodesEntry != null) {

@@ -245,6 +245,17 @@ class HostProfileReaderTest {
   }
 
   @Test
+  void read_millionsOfNodes_errorNotOutOfMemory() {
+    // Found by fuzzing: 8 sockets × 4444444 nodes per socket made the reader build 35 million
+    // nodes and run out of memory.
+    assertEquals(
+        List.of("t.yaml:7: error: spec.nodesPerSocket: expected at most 1024 NUMA nodes in all"
+            + " (sockets × nodesPerSocket), got 8 × 4444444 = 35555552"),
+        errors(BASE.replace("sockets: 1", "sockets: 8")
+            .replace("nodesPerSocket: 2", "nodesPerSocket: 4444444")));
+  }
+
+  @Test
   void read_reserveLargerThanHost_error() {
     assertEquals(
         List.of("t.yaml:15: error: spec.hypervisor.reservedMemory: expected less than the host's"
