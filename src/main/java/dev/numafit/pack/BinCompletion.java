@@ -10,7 +10,8 @@ import java.util.SplittableRandom;
 /**
  * Bin completion on one dimension: a depth-first search that fills the bins one at a time and
  * tries to pack every item into a given number of bins. The last step of {@link VectorPacker} on
- * one dimension, after the local search ({@link PoolSearch}).
+ * one dimension, after the local search ({@link PoolSearch}) and the free-room walk
+ * ({@link RoomWalk}).
  *
  * <p>Each bin starts with the largest item left; the search then chooses which other items
  * complete it. A completion is a multiset of item sizes (items of equal size are never told
