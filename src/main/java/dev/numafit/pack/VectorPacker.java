@@ -37,6 +37,9 @@ public final class VectorPacker {
   /** Seed of the free-room walk's random stream (one above the local search's, fixed). */
   static final long WALK_SEED = PoolSearch.SEED + 1;
 
+  /** Seed of the column dive's perturbation (the local search's plus two). */
+  static final long DIVE_SEED = PoolSearch.SEED + 2;
+
   private final long stepBudget;
 
   /** A packer with {@link #DEFAULT_STEP_BUDGET}. */
@@ -285,15 +288,32 @@ public final class VectorPacker {
         }
       }
       if (bestBins > lowerBound && steps < budget) {
-        long[] w = new long[Math.multiplyExact(in.n, in.d)];
-        for (int i = 0; i < in.n; i++) {
-          System.arraycopy(in.w, in.typeOfItem[i] * in.d, w, i * in.d, in.d);
-        }
+        long[] w = itemDemands();
         PoolSearch pool = new PoolSearch(in.n, in.d, in.cap, w, best, budget - steps);
         best = pool.run(lowerBound);
         steps += pool.steps();
       }
       bestBins = binsOf(best);
+      if (in.d >= 2 && bestBins > lowerBound && budget > 0 && in.types <= ColumnDive.MAX_TYPES
+          && in.n <= ColumnDive.MAX_ITEMS) {
+        // Several dimensions: a dive over the set-cover relaxation, then the local search again
+        // from what it found.
+        ColumnDive.Result r = ColumnDive.dive(in.d, in.cap, in.w, in.count, in.members,
+            in.typeOfItem, best, saturatedTimes(budget, ColumnDive.STEPS_PER_BUDGET_STEP),
+            DIVE_SEED);
+        steps += r.steps();
+        if (r.binOf() != null) {
+          best = r.binOf();
+          bestBins = binsOf(best);
+          if (bestBins > lowerBound) {
+            long[] w = itemDemands();
+            PoolSearch again = new PoolSearch(in.n, in.d, in.cap, w, best, budget);
+            best = again.run(lowerBound);
+            steps += again.steps();
+            bestBins = binsOf(best);
+          }
+        }
+      }
       if (in.d == 1 && bestBins > lowerBound) {
         long[] sizes = new long[in.n];
         for (int i = 0; i < in.n; i++) {
@@ -320,6 +340,19 @@ public final class VectorPacker {
         }
       }
       return new Packing(binsOf(best), best, steps, lowerBound);
+    }
+
+    /** Demands per item, flat {@code w[i * d + k]}. */
+    private long[] itemDemands() {
+      long[] w = new long[Math.multiplyExact(in.n, in.d)];
+      for (int i = 0; i < in.n; i++) {
+        System.arraycopy(in.w, in.typeOfItem[i] * in.d, w, i * in.d, in.d);
+      }
+      return w;
+    }
+
+    private static long saturatedTimes(long a, long b) {
+      return Math.multiplyHigh(a, b) != 0 || a * b < 0 ? Long.MAX_VALUE : a * b;
     }
 
     private static int binsOf(int[] binOfItem) {

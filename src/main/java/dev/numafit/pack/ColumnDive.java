@@ -1,0 +1,785 @@
+package dev.numafit.pack;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.SplittableRandom;
+
+/**
+ * A packing read off the linear relaxation of the set-cover model of bin packing, fixing one bin
+ * at a time (a "diving" heuristic over column generation, written here from the textbook idea):
+ * the last step of {@link VectorPacker} on several dimensions.
+ *
+ * <p>The model: every feasible content of one bin is a column (how many items of each distinct
+ * vector it holds); choose columns, as few as possible, so that every item is covered. Its linear
+ * relaxation is solved by the revised simplex method over a growing set of columns: a new column
+ * enters when the duals make it worth more than one bin (its reduced cost is negative); it is
+ * found by a depth-first search for the bin content of greatest dual value (a knapsack in every
+ * dimension at once, bounded by the fractional knapsack on the sum of the normalised dimensions).
+ * Once the relaxation is solved, the columns it uses a whole number of times are fixed as bins (or,
+ * when none is, the one it uses most), their items leave the model, and the relaxation is solved
+ * again for the items left, until none is left. The dive gives up as soon as the bins fixed plus
+ * the relaxation's bound for the rest cannot beat the packing it was given.
+ *
+ * <p>Effort is counted in steps: one per simplex pivot and basis row it updates, per column
+ * priced and per node of the column search; the dive stops at its allowance. Ties are broken by
+ * index; the right-hand side is perturbed by tiny amounts from a {@link SplittableRandom} with a
+ * fixed seed, against the cycling of degenerate pivots. Same input, same packing. A heuristic: it
+ * never claims that a packing does not exist.
+ */
+final class ColumnDive {
+  /** Largest number of distinct item vectors the dive is tried on (its basis is m × m). */
+  static final int MAX_TYPES = 1_000;
+
+  /**
+   * Largest number of items the dive is tried on: it solves one relaxation per round and a
+   * round fixes at least one bin.
+   */
+  static final int MAX_ITEMS = 5_000;
+
+  /**
+   * The dive's allowance per step of the packer's budget. Its steps are small units (one basis
+   * row updated, one column priced, one search node), so the default budget lets it spend
+   * 500 million of them: a few seconds on 500 distinct items, far less on fewer.
+   */
+  static final long STEPS_PER_BUDGET_STEP = 250;
+
+  /** Nodes one column search may spend before it returns what it found. */
+  static final long PRICE_NODES = 200_000;
+
+  /** Columns one column search may add (the best it met). */
+  static final int COLUMNS_PER_SEARCH = 20;
+
+  private static final double EPS = 1e-9;
+
+  /** Outcome: the bin of each item, or null when the dive found nothing better; steps spent. */
+  record Result(int[] binOf, long steps) {}
+
+  private final int d;
+  private final long[] cap;
+  /** Demands per type, flat {@code w[t * d + k]}. */
+  private final long[] w;
+  private final int types;
+  private final double[] norm;
+  /** Every column met so far, by content. */
+  private final Map<Column, Boolean> known = new HashMap<>();
+  private final List<Column> pool = new ArrayList<>();
+  private final SplittableRandom random;
+  private final long allowance;
+  private long steps;
+
+  /** A bin's content: distinct types in increasing order and how many of each. */
+  record Column(int[] type, int[] mult) {
+    @Override
+    public boolean equals(Object o) {
+      return o instanceof Column c && Arrays.equals(type, c.type) && Arrays.equals(mult, c.mult);
+    }
+
+    @Override
+    public int hashCode() {
+      return 31 * Arrays.hashCode(type) + Arrays.hashCode(mult);
+    }
+  }
+
+  private ColumnDive(int d, long[] cap, long[] w, int types, long allowance, long seed) {
+    this.d = d;
+    this.cap = cap;
+    this.w = w;
+    this.types = types;
+    this.allowance = allowance;
+    this.random = new SplittableRandom(seed);
+    this.norm = new double[types];
+    for (int t = 0; t < types; t++) {
+      double s = 0;
+      for (int k = 0; k < d; k++) {
+        s += (double) w[t * d + k] / cap[k];
+      }
+      norm[t] = s;
+    }
+  }
+
+  /**
+   * Dives for a packing in fewer than {@code toBeat} bins.
+   *
+   * @param d dimensions (every capacity above zero)
+   * @param cap capacity per dimension
+   * @param w demands per type, flat {@code w[t * d + k]}; every type fits an empty bin
+   * @param count items of each type
+   * @param members the item indices of each type
+   * @param n items in all
+   * @param typeOf the type of each item
+   * @param inHand the packing in hand (bin of each item), whose bins are the first columns
+   * @param allowance steps the dive may spend
+   * @param seed seed of the perturbation
+   */
+  static Result dive(int d, long[] cap, long[] w, int[] count, int[][] members, int[] typeOf,
+      int[] inHand, long allowance, long seed) {
+    ColumnDive cd = new ColumnDive(d, cap, w, count.length, allowance, seed);
+    int n = typeOf.length;
+    int toBeat = 0;
+    for (int b : inHand) {
+      toBeat = Math.max(toBeat, b + 1);
+    }
+    // The bins in hand are good columns to start from.
+    List<Map<Integer, Integer>> contents = new ArrayList<>();
+    for (int b = 0; b < toBeat; b++) {
+      contents.add(new java.util.TreeMap<>());
+    }
+    for (int i = 0; i < n; i++) {
+      contents.get(inHand[i]).merge(typeOf[i], 1, Integer::sum);
+    }
+    for (Map<Integer, Integer> c : contents) {
+      int[] type = new int[c.size()];
+      int[] mult = new int[c.size()];
+      int j = 0;
+      for (Map.Entry<Integer, Integer> e : c.entrySet()) {
+        type[j] = e.getKey();
+        mult[j++] = e.getValue();
+      }
+      if (j > 0) {
+        cd.remember(new Column(type, mult));
+      }
+    }
+    List<Column> bins = cd.run(count.clone(), toBeat);
+    if (bins == null) {
+      return new Result(null, cd.steps);
+    }
+    int[] binOf = new int[n];
+    Arrays.fill(binOf, -1);
+    int[] next = new int[count.length];
+    for (int b = 0; b < bins.size(); b++) {
+      Column c = bins.get(b);
+      for (int j = 0; j < c.type.length; j++) {
+        int t = c.type[j];
+        for (int m = 0; m < c.mult[j]; m++) {
+          binOf[members[t][next[t]++]] = b;
+        }
+      }
+    }
+    for (int b : binOf) {
+      if (b < 0) {
+        throw new IllegalStateException("the dive left an item without a bin");
+      }
+    }
+    return new Result(binOf, cd.steps);
+  }
+
+  /** The bins of the dive, or null when it gives up. */
+  private List<Column> run(int[] left, int toBeat) {
+    List<Column> fixed = new ArrayList<>();
+    while (true) {
+      int[] rows = activeTypes(left);
+      if (rows.length == 0) {
+        return fixed.size() < toBeat ? fixed : null;
+      }
+      Lp lp = new Lp(rows, left);
+      if (!lp.solve()) {
+        return null;
+      }
+      double z = lp.objective();
+      if (fixed.size() + Math.ceil(z - 1e-6) >= toBeat) {
+        return null;
+      }
+      // Fix the columns used a whole number of times; when none is, the one used most.
+      List<Column> fix = new ArrayList<>();
+      List<Integer> copies = new ArrayList<>();
+      int most = -1;
+      double mostX = -1;
+      for (int r = 0; r < lp.m; r++) {
+        int j = lp.basis[r];
+        if (j < 0) {
+          continue;
+        }
+        double x = lp.xb[r];
+        int whole = (int) Math.floor(x + 1e-6);
+        if (whole >= 1) {
+          fix.add(lp.cols.get(j));
+          copies.add(whole);
+        } else if (x > mostX + EPS) {
+          mostX = x;
+          most = j;
+        }
+      }
+      if (fix.isEmpty()) {
+        if (most < 0) {
+          return null;
+        }
+        fix.add(lp.cols.get(most));
+        copies.add(1);
+      }
+      for (int f = 0; f < fix.size(); f++) {
+        for (int c = 0; c < copies.get(f); c++) {
+          Column clipped = clip(fix.get(f), left);
+          if (clipped == null) {
+            break;
+          }
+          for (int j = 0; j < clipped.type.length; j++) {
+            left[clipped.type[j]] -= clipped.mult[j];
+          }
+          fixed.add(clipped);
+          if (fixed.size() >= toBeat) {
+            return null;
+          }
+        }
+      }
+    }
+  }
+
+  private int[] activeTypes(int[] left) {
+    int m = 0;
+    for (int t = 0; t < types; t++) {
+      if (left[t] > 0) {
+        m++;
+      }
+    }
+    int[] rows = new int[m];
+    m = 0;
+    for (int t = 0; t < types; t++) {
+      if (left[t] > 0) {
+        rows[m++] = t;
+      }
+    }
+    return rows;
+  }
+
+  /** The column restricted to the items left; null when nothing of it is left. */
+  private static Column clip(Column c, int[] left) {
+    int len = 0;
+    for (int j = 0; j < c.type.length; j++) {
+      if (left[c.type[j]] > 0) {
+        len++;
+      }
+    }
+    if (len == 0) {
+      return null;
+    }
+    int[] type = new int[len];
+    int[] mult = new int[len];
+    len = 0;
+    for (int j = 0; j < c.type.length; j++) {
+      int t = c.type[j];
+      if (left[t] > 0) {
+        type[len] = t;
+        mult[len++] = Math.min(c.mult[j], left[t]);
+      }
+    }
+    return new Column(type, mult);
+  }
+
+  /** Adds a column to the pool of columns met, once. */
+  private void remember(Column c) {
+    if (known.putIfAbsent(c, Boolean.TRUE) == null) {
+      pool.add(c);
+    }
+  }
+
+  /** The restricted master problem over the types left, solved by the revised simplex method. */
+  private final class Lp {
+    final int m;
+    final int[] typeOfRow;
+    final int[] rowOfType;
+    final double[] b;
+    final List<Column> cols = new ArrayList<>();
+    /** Rows of each column, parallel to {@code cols}. */
+    final List<int[]> colRows = new ArrayList<>();
+    final Map<Column, Integer> inLp = new HashMap<>();
+    final List<Boolean> basic = new ArrayList<>();
+    final boolean[] surplusIn;
+    /** Basic variable of each row: a column index, or −(row + 1) for that row's surplus. */
+    final int[] basis;
+    final double[][] binv;
+    final double[] xb;
+    final double[] y;
+    final int[] left;
+    int pivotsSinceRefactor;
+    boolean dualsFresh;
+
+    Lp(int[] rows, int[] left) {
+      this.m = rows.length;
+      this.typeOfRow = rows;
+      this.left = left;
+      this.rowOfType = new int[types];
+      Arrays.fill(rowOfType, -1);
+      for (int r = 0; r < m; r++) {
+        rowOfType[rows[r]] = r;
+      }
+      this.b = new double[m];
+      for (int r = 0; r < m; r++) {
+        // A tiny perturbation keeps degenerate pivots from cycling.
+        b[r] = left[rows[r]] * (1 + 1e-7 * random.nextDouble());
+      }
+      this.basis = new int[m];
+      this.binv = new double[m][m];
+      this.xb = new double[m];
+      this.y = new double[m];
+      this.surplusIn = new boolean[m];
+      // Start: each type alone, as many of it as fit one bin.
+      for (int r = 0; r < m; r++) {
+        int t = rows[r];
+        int k = Math.min(left[t], fitAlone(t));
+        int j = add(new Column(new int[] {t}, new int[] {k}));
+        basis[r] = j;
+        basic.set(j, true);
+        binv[r][r] = 1.0 / k;
+        xb[r] = b[r] / k;
+      }
+      for (Column c : pool) {
+        Column clipped = clip(c, left);
+        if (clipped != null) {
+          add(clipped);
+        }
+      }
+    }
+
+    private int fitAlone(int t) {
+      long most = Long.MAX_VALUE;
+      for (int k = 0; k < d; k++) {
+        long wk = w[t * d + k];
+        if (wk > 0) {
+          most = Math.min(most, cap[k] / wk);
+        }
+      }
+      return (int) Math.min(Integer.MAX_VALUE, Math.max(1, most));
+    }
+
+    /** Adds a column (once); returns its index. */
+    private int add(Column c) {
+      Integer seen = inLp.putIfAbsent(c, cols.size());
+      if (seen != null) {
+        return seen;
+      }
+      int[] r = new int[c.type.length];
+      for (int i = 0; i < r.length; i++) {
+        r[i] = rowOfType[c.type[i]];
+      }
+      cols.add(c);
+      colRows.add(r);
+      basic.add(false);
+      return cols.size() - 1;
+    }
+
+    double objective() {
+      double z = 0;
+      for (int r = 0; r < m; r++) {
+        if (basis[r] >= 0) {
+          z += xb[r];
+        }
+      }
+      return z;
+    }
+
+    /** Solves the relaxation; false when the allowance runs out first. */
+    boolean solve() {
+      double[] alpha = new double[m];
+      while (true) {
+        if (steps >= allowance) {
+          return false;
+        }
+        if (!dualsFresh) {
+          duals();
+          dualsFresh = true;
+        }
+        int enter = Integer.MIN_VALUE;
+        double bestRc = -EPS;
+        for (int j = 0; j < cols.size(); j++) {
+          if (basic.get(j)) {
+            continue;
+          }
+          double rc = 1;
+          int[] r = colRows.get(j);
+          int[] mult = cols.get(j).mult;
+          for (int i = 0; i < r.length; i++) {
+            rc -= y[r[i]] * mult[i];
+          }
+          if (rc < bestRc) {
+            bestRc = rc;
+            enter = j;
+          }
+        }
+        steps += cols.size();
+        for (int r = 0; r < m; r++) {
+          // A surplus enters when its dual is negative (over-covering a row pays).
+          if (y[r] < bestRc && !surplusIn[r]) {
+            bestRc = y[r];
+            enter = -(r + 1);
+          }
+        }
+        if (enter == Integer.MIN_VALUE) {
+          List<Column> found = price();
+          if (found.isEmpty()) {
+            return true;
+          }
+          for (Column c : found) {
+            add(c);
+            remember(c);
+          }
+          continue;
+        }
+        column(enter, alpha);
+        int leave = -1;
+        double bestRatio = Double.MAX_VALUE;
+        for (int r = 0; r < m; r++) {
+          if (alpha[r] > EPS) {
+            double ratio = Math.max(0, xb[r]) / alpha[r];
+            if (ratio < bestRatio - 1e-12
+                || (ratio <= bestRatio + 1e-12 && leave >= 0 && alpha[r] > alpha[leave])) {
+              bestRatio = ratio;
+              leave = r;
+            }
+          }
+        }
+        if (leave < 0) {
+          // Cannot happen with positive costs; give up rather than loop.
+          return false;
+        }
+        pivot(enter, leave, alpha, bestRatio);
+        if (pivotsSinceRefactor == 0) {
+          dualsFresh = false;
+        } else {
+          // y ← y + d_q · (row p of the new B⁻¹).
+          double[] prow = binv[leave];
+          for (int i = 0; i < m; i++) {
+            y[i] += bestRc * prow[i];
+          }
+          steps += m;
+        }
+      }
+    }
+
+    private void duals() {
+      Arrays.fill(y, 0);
+      for (int r = 0; r < m; r++) {
+        if (basis[r] >= 0) {
+          double[] row = binv[r];
+          for (int i = 0; i < m; i++) {
+            y[i] += row[i];
+          }
+        }
+      }
+      steps += m;
+    }
+
+    /** B⁻¹ times the entering column. */
+    private void column(int enter, double[] alpha) {
+      if (enter < 0) {
+        int row = -enter - 1;
+        for (int r = 0; r < m; r++) {
+          alpha[r] = -binv[r][row];
+        }
+        return;
+      }
+      int[] rs = colRows.get(enter);
+      int[] mult = cols.get(enter).mult;
+      for (int r = 0; r < m; r++) {
+        double s = 0;
+        double[] row = binv[r];
+        for (int i = 0; i < rs.length; i++) {
+          s += row[rs[i]] * mult[i];
+        }
+        alpha[r] = s;
+      }
+    }
+
+    private void pivot(int enter, int leave, double[] alpha, double theta) {
+      for (int r = 0; r < m; r++) {
+        xb[r] -= theta * alpha[r];
+      }
+      xb[leave] = theta;
+      double[] prow = binv[leave];
+      double a = alpha[leave];
+      for (int i = 0; i < m; i++) {
+        prow[i] /= a;
+      }
+      for (int r = 0; r < m; r++) {
+        if (r == leave || alpha[r] == 0) {
+          continue;
+        }
+        double f = alpha[r];
+        double[] row = binv[r];
+        for (int i = 0; i < m; i++) {
+          row[i] -= f * prow[i];
+        }
+      }
+      steps += m;
+      int out = basis[leave];
+      if (out >= 0) {
+        basic.set(out, false);
+      } else {
+        surplusIn[-out - 1] = false;
+      }
+      basis[leave] = enter;
+      if (enter >= 0) {
+        basic.set(enter, true);
+      } else {
+        surplusIn[-enter - 1] = true;
+      }
+      if (++pivotsSinceRefactor >= Math.max(100, m)) {
+        refactor();
+      }
+    }
+
+    /** Inverts the basis afresh (Gauss–Jordan with partial pivoting) and recomputes x_B. */
+    private void refactor() {
+      pivotsSinceRefactor = 0;
+      double[][] a = new double[m][2 * m];
+      for (int r = 0; r < m; r++) {
+        int j = basis[r];
+        if (j < 0) {
+          a[-j - 1][r] = -1;
+        } else {
+          int[] rs = colRows.get(j);
+          int[] mult = cols.get(j).mult;
+          for (int i = 0; i < rs.length; i++) {
+            a[rs[i]][r] = mult[i];
+          }
+        }
+        a[r][m + r] = 1;
+      }
+      for (int c = 0; c < m; c++) {
+        int p = c;
+        for (int r = c + 1; r < m; r++) {
+          if (Math.abs(a[r][c]) > Math.abs(a[p][c])) {
+            p = r;
+          }
+        }
+        if (Math.abs(a[p][c]) < 1e-12) {
+          return; // singular by round-off: keep the updated inverse
+        }
+        double[] tmp = a[p];
+        a[p] = a[c];
+        a[c] = tmp;
+        double piv = a[c][c];
+        for (int i = c; i < 2 * m; i++) {
+          a[c][i] /= piv;
+        }
+        for (int r = 0; r < m; r++) {
+          if (r != c && a[r][c] != 0) {
+            double f = a[r][c];
+            for (int i = c; i < 2 * m; i++) {
+              a[r][i] -= f * a[c][i];
+            }
+          }
+        }
+      }
+      steps += (long) m * m;
+      for (int r = 0; r < m; r++) {
+        System.arraycopy(a[r], m, binv[r], 0, m);
+      }
+      for (int r = 0; r < m; r++) {
+        double s = 0;
+        for (int i = 0; i < m; i++) {
+          s += binv[r][i] * b[i];
+        }
+        xb[r] = s;
+      }
+    }
+
+    // --- column search -----------------------------------------------------------------------
+
+    private int[] cand;
+    private double[] candVal;
+    private long[] room;
+    private int[] pick;
+    private int[] pickMult;
+    private int depth;
+    private long nodes;
+    private long boundWork;
+    private List<Column> found;
+    private List<Double> foundVal;
+    private double threshold;
+
+    /** Columns of negative reduced cost under the current duals, best first (may be empty). */
+    private List<Column> price() {
+      int c = 0;
+      cand = new int[m];
+      for (int r = 0; r < m; r++) {
+        if (y[r] > EPS) {
+          cand[c++] = r;
+        }
+      }
+      Integer[] order = new Integer[c];
+      for (int i = 0; i < c; i++) {
+        order[i] = cand[i];
+      }
+      Arrays.sort(order, (p, q) -> {
+        int cmp = Double.compare(ratio(q), ratio(p));
+        return cmp != 0 ? cmp : Integer.compare(p, q);
+      });
+      cand = new int[c];
+      candVal = new double[c];
+      for (int i = 0; i < c; i++) {
+        cand[i] = order[i];
+        candVal[i] = y[order[i]];
+      }
+      byDim = new int[d][];
+      for (int k = 0; k < d; k++) {
+        final int dim = k;
+        Integer[] o = new Integer[c];
+        for (int i = 0; i < c; i++) {
+          o[i] = i;
+        }
+        Arrays.sort(o, (p, q) -> {
+          long wp = w[typeOfRow[cand[p]] * d + dim];
+          long wq = w[typeOfRow[cand[q]] * d + dim];
+          // candVal[p] / wp against candVal[q] / wq, zero demand first.
+          int cmp = Double.compare(candVal[q] * wp, candVal[p] * wq);
+          return cmp != 0 ? cmp : Integer.compare(p, q);
+        });
+        byDim[k] = new int[c];
+        for (int i = 0; i < c; i++) {
+          byDim[k][i] = o[i];
+        }
+      }
+      room = cap.clone();
+      pick = new int[c];
+      pickMult = new int[c];
+      depth = 0;
+      nodes = 0;
+      found = new ArrayList<>();
+      foundVal = new ArrayList<>();
+      threshold = 1 + 1e-7;
+      boundWork = 0;
+      search(0, 0);
+      steps += nodes + boundWork / 8;
+      return found;
+    }
+
+    private double ratio(int r) {
+      double s = norm[typeOfRow[r]];
+      return s <= 0 ? Double.MAX_VALUE : y[r] / s;
+    }
+
+    /** Candidate positions per dimension, by dual value per unit of that dimension, best first. */
+    private int[][] byDim;
+
+    /** Upper bound on what candidates from index i on can add within the room left. */
+    private double bound(int i, double need) {
+      double roomSum = 0;
+      for (int k = 0; k < d; k++) {
+        roomSum += (double) room[k] / cap[k];
+      }
+      double add = 0;
+      for (int j = i; j < cand.length; j++) {
+        int r = cand[j];
+        double s = norm[typeOfRow[r]];
+        int avail = left[typeOfRow[r]];
+        if (s <= 0) {
+          add += candVal[j] * avail;
+          continue;
+        }
+        double take = Math.min(avail, roomSum / s);
+        add += candVal[j] * take;
+        roomSum -= take * s;
+        if (roomSum <= 0) {
+          break;
+        }
+      }
+      if (add <= need) {
+        return add;
+      }
+      // Each dimension alone: the fractional knapsack of that dimension's room.
+      for (int k = 0; k < d; k++) {
+        double roomK = room[k];
+        double addK = 0;
+        for (int j : byDim[k]) {
+          boundWork++;
+          if (j < i) {
+            continue;
+          }
+          int t = typeOfRow[cand[j]];
+          long wk = w[t * d + k];
+          int avail = left[t];
+          if (wk == 0) {
+            addK += candVal[j] * avail;
+            continue;
+          }
+          double take = Math.min(avail, roomK / wk);
+          addK += candVal[j] * take;
+          roomK -= take * wk;
+          if (roomK <= 0) {
+            break;
+          }
+        }
+        add = Math.min(add, addK);
+        if (add <= need) {
+          return add;
+        }
+      }
+      return add;
+    }
+
+    private void search(int from, double value) {
+      for (int j = from; j < cand.length; j++) {
+        if (nodes >= PRICE_NODES) {
+          return;
+        }
+        nodes++;
+        if (value + bound(j, threshold - value) <= threshold) {
+          return;
+        }
+        int r = cand[j];
+        int t = typeOfRow[r];
+        int most = left[t];
+        for (int k = 0; k < d; k++) {
+          long wk = w[t * d + k];
+          if (wk > 0) {
+            most = (int) Math.min(most, room[k] / wk);
+          }
+        }
+        for (int q = most; q >= 1; q--) {
+          for (int k = 0; k < d; k++) {
+            room[k] -= q * w[t * d + k];
+          }
+          pick[depth] = t;
+          pickMult[depth] = q;
+          depth++;
+          double v = value + q * candVal[j];
+          if (v > threshold) {
+            record(v);
+          }
+          search(j + 1, v);
+          depth--;
+          for (int k = 0; k < d; k++) {
+            room[k] += q * w[t * d + k];
+          }
+        }
+      }
+    }
+
+    private void record(double v) {
+      int[] type = new int[depth];
+      int[] mult = new int[depth];
+      Integer[] ord = new Integer[depth];
+      for (int i = 0; i < depth; i++) {
+        ord[i] = i;
+      }
+      Arrays.sort(ord, (p, q) -> Integer.compare(pick[p], pick[q]));
+      for (int i = 0; i < depth; i++) {
+        type[i] = pick[ord[i]];
+        mult[i] = pickMult[ord[i]];
+      }
+      Column col = new Column(type, mult);
+      if (inLp.containsKey(col)) {
+        return;
+      }
+      int at = 0;
+      while (at < foundVal.size() && foundVal.get(at) >= v) {
+        at++;
+      }
+      if (at >= COLUMNS_PER_SEARCH) {
+        return;
+      }
+      found.add(at, col);
+      foundVal.add(at, v);
+      if (found.size() > COLUMNS_PER_SEARCH) {
+        found.remove(found.size() - 1);
+        foundVal.remove(foundVal.size() - 1);
+      }
+      if (found.size() == COLUMNS_PER_SEARCH) {
+        threshold = Math.max(threshold, foundVal.get(foundVal.size() - 1));
+      }
+    }
+  }
+}
