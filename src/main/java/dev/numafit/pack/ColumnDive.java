@@ -6,6 +6,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
+import java.util.TreeMap;
 
 /**
  * A packing read off the linear relaxation of the set-cover model of bin packing, fixing one bin
@@ -46,6 +47,9 @@ final class ColumnDive {
    */
   static final long STEPS_PER_BUDGET_STEP = 250;
 
+  /** Dives at most, each from all items with its own perturbation. */
+  static final int MAX_DIVES = 8;
+
   /** Nodes one column search may spend before it returns what it found. */
   static final long PRICE_NODES = 200_000;
 
@@ -53,6 +57,16 @@ final class ColumnDive {
   static final int COLUMNS_PER_SEARCH = 20;
 
   private static final double EPS = 1e-9;
+
+  /**
+   * Taken off a relaxation's value before rounding it up to whole bins: the perturbation of the
+   * right-hand side (at most 1e-7 of each row) and round-off may lift it a little above a whole
+   * number.
+   */
+  private static final double ROUND_OFF = 1e-3;
+
+  /** Candidates that each start one bin of the quick column search. */
+  static final int GREEDY_SEEDS = 30;
 
   /** Outcome: the bin of each item, or null when the dive found nothing better; steps spent. */
   record Result(int[] binOf, long steps) {}
@@ -66,7 +80,9 @@ final class ColumnDive {
   /** Every column met so far, by content. */
   private final Map<Column, Boolean> known = new HashMap<>();
   private final List<Column> pool = new ArrayList<>();
-  private final SplittableRandom random;
+  private SplittableRandom random;
+  /** The relaxation's value over all items, once solved (a bound unless pricing was cut short). */
+  private double rootValue = -1;
   private final long allowance;
   private long steps;
 
@@ -125,24 +141,30 @@ final class ColumnDive {
     // The bins in hand are good columns to start from.
     List<Map<Integer, Integer>> contents = new ArrayList<>();
     for (int b = 0; b < toBeat; b++) {
-      contents.add(new java.util.TreeMap<>());
+      contents.add(new TreeMap<>());
     }
     for (int i = 0; i < n; i++) {
       contents.get(inHand[i]).merge(typeOf[i], 1, Integer::sum);
     }
     for (Map<Integer, Integer> c : contents) {
-      int[] type = new int[c.size()];
-      int[] mult = new int[c.size()];
-      int j = 0;
-      for (Map.Entry<Integer, Integer> e : c.entrySet()) {
-        type[j] = e.getKey();
-        mult[j++] = e.getValue();
-      }
-      if (j > 0) {
-        cd.remember(new Column(type, mult));
+      if (!c.isEmpty()) {
+        cd.remember(columnOf(c));
       }
     }
-    List<Column> bins = cd.run(count.clone(), toBeat);
+    // Dives differ by the perturbation alone; the columns met carry over from one to the next.
+    List<Column> bins = null;
+    int target = toBeat;
+    for (int attempt = 0; attempt < MAX_DIVES && cd.steps < allowance; attempt++) {
+      cd.random = new SplittableRandom(seed + attempt);
+      List<Column> found = cd.run(count.clone(), target);
+      if (found != null) {
+        bins = found;
+        target = found.size();
+      }
+      if (cd.rootValue >= 0 && Math.ceil(cd.rootValue - ROUND_OFF) >= target) {
+        break;
+      }
+    }
     if (bins == null) {
       return new Result(null, cd.steps);
     }
@@ -176,10 +198,14 @@ final class ColumnDive {
       }
       Lp lp = new Lp(rows, left);
       if (!lp.solve()) {
-        return null;
+        // Out of allowance: round what the relaxation has so far and place the rest first fit.
+        return finish(lp, left, fixed, toBeat);
       }
       double z = lp.objective();
-      if (fixed.size() + Math.ceil(z - 1e-6) >= toBeat) {
+      if (fixed.isEmpty() && rootValue < 0) {
+        rootValue = z;
+      }
+      if (fixed.size() + Math.ceil(z - ROUND_OFF) >= toBeat) {
         return null;
       }
       // Fix the columns used a whole number of times; when none is, the one used most.
@@ -225,6 +251,103 @@ final class ColumnDive {
         }
       }
     }
+  }
+
+  /**
+   * Completes the dive without further relaxations: the columns of the current basis, most used
+   * first, while their items are all left, then the items still left first fit, largest first.
+   * Returns the bins, or null when they are not fewer than {@code toBeat}.
+   */
+  private List<Column> finish(Lp lp, int[] left, List<Column> fixed, int toBeat) {
+    Integer[] rows = new Integer[lp.m];
+    for (int r = 0; r < lp.m; r++) {
+      rows[r] = r;
+    }
+    Arrays.sort(rows, (p, q) -> {
+      int cmp = Double.compare(lp.xb[q], lp.xb[p]);
+      return cmp != 0 ? cmp : Integer.compare(p, q);
+    });
+    for (int r : rows) {
+      int j = lp.basis[r];
+      if (j < 0 || lp.xb[r] <= EPS) {
+        continue;
+      }
+      Column c = lp.cols.get(j);
+      while (fixed.size() < toBeat && whole(c, left)) {
+        for (int i = 0; i < c.type.length; i++) {
+          left[c.type[i]] -= c.mult[i];
+        }
+        fixed.add(c);
+        if (lp.xb[r] < 1 + 1e-6 || !whole(c, left)) {
+          break;
+        }
+      }
+    }
+    // First fit, largest first (by the sum of normalised demands), over new bins.
+    Integer[] order = new Integer[types];
+    for (int t = 0; t < types; t++) {
+      order[t] = t;
+    }
+    Arrays.sort(order, (p, q) -> {
+      int cmp = Double.compare(norm[q], norm[p]);
+      return cmp != 0 ? cmp : Integer.compare(p, q);
+    });
+    List<long[]> room = new ArrayList<>();
+    List<Map<Integer, Integer>> content = new ArrayList<>();
+    for (int t : order) {
+      for (int c = 0; c < left[t]; c++) {
+        steps += room.size() + 1;
+        int at = -1;
+        for (int b = 0; b < room.size() && at < 0; b++) {
+          boolean fits = true;
+          for (int k = 0; k < d && fits; k++) {
+            fits = w[t * d + k] <= room.get(b)[k];
+          }
+          if (fits) {
+            at = b;
+          }
+        }
+        if (at < 0) {
+          if (fixed.size() + room.size() + 1 >= toBeat) {
+            return null;
+          }
+          room.add(cap.clone());
+          content.add(new TreeMap<>());
+          at = room.size() - 1;
+        }
+        for (int k = 0; k < d; k++) {
+          room.get(at)[k] -= w[t * d + k];
+        }
+        content.get(at).merge(t, 1, Integer::sum);
+      }
+      left[t] = 0;
+    }
+    for (Map<Integer, Integer> c : content) {
+      fixed.add(columnOf(c));
+    }
+    return fixed.size() < toBeat ? fixed : null;
+  }
+
+  /** Whether every item of the column is still left. */
+  private static boolean whole(Column c, int[] left) {
+    for (int i = 0; i < c.type.length; i++) {
+      if (left[c.type[i]] < c.mult[i]) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  /** The column of a bin's content (type → how many). */
+  static Column columnOf(Map<Integer, Integer> content) {
+    int[] type = new int[content.size()];
+    int[] mult = new int[content.size()];
+    int j = 0;
+    for (Map.Entry<Integer, Integer> e : content.entrySet()) {
+      type[j] = e.getKey();
+      mult[j++] = e.getValue();
+    }
+    return new Column(type, mult);
   }
 
   private int[] activeTypes(int[] left) {
@@ -641,7 +764,10 @@ final class ColumnDive {
       foundVal = new ArrayList<>();
       threshold = 1 + 1e-7;
       boundWork = 0;
-      search(0, 0);
+      greedy();
+      if (found.isEmpty()) {
+        search(0, 0);
+      }
       steps += nodes + boundWork / 8;
       return found;
     }
@@ -708,6 +834,47 @@ final class ColumnDive {
         }
       }
       return add;
+    }
+
+    /**
+     * The quick way first: each of the first {@link #GREEDY_SEEDS} candidates starts a bin that
+     * the others then fill in their order, as many of each as fit.
+     */
+    private void greedy() {
+      for (int s0 = 0; s0 < Math.min(GREEDY_SEEDS, cand.length); s0++) {
+        depth = 0;
+        System.arraycopy(cap, 0, room, 0, d);
+        double value = 0;
+        for (int step = 0; step <= cand.length; step++) {
+          int j = step == 0 ? s0 : step - 1;
+          if (step > 0 && j == s0) {
+            continue;
+          }
+          nodes++;
+          int t = typeOfRow[cand[j]];
+          int most = left[t];
+          for (int k = 0; k < d; k++) {
+            long wk = w[t * d + k];
+            if (wk > 0) {
+              most = (int) Math.min(most, room[k] / wk);
+            }
+          }
+          if (most <= 0) {
+            continue;
+          }
+          for (int k = 0; k < d; k++) {
+            room[k] -= most * w[t * d + k];
+          }
+          pick[depth] = t;
+          pickMult[depth++] = most;
+          value += most * candVal[j];
+        }
+        if (value > threshold) {
+          record(value);
+        }
+      }
+      depth = 0;
+      System.arraycopy(cap, 0, room, 0, d);
     }
 
     private void search(int from, double value) {
