@@ -16,16 +16,24 @@ import java.util.TreeMap;
  * <p>The model: every feasible content of one bin is a column (how many items of each distinct
  * vector it holds); choose columns, as few as possible, so that every item is covered. Its linear
  * relaxation is solved by the revised simplex method over a growing set of columns: a new column
- * enters when the duals make it worth more than one bin (its reduced cost is negative); it is
- * found by a depth-first search for the bin content of greatest dual value (a knapsack in every
- * dimension at once, bounded by the fractional knapsack on the sum of the normalised dimensions).
- * Once the relaxation is solved, the columns it uses a whole number of times are fixed as bins (or,
- * when none is, the one it uses most), their items leave the model, and the relaxation is solved
- * again for the items left, until none is left. The dive gives up as soon as the bins fixed plus
- * the relaxation's bound for the rest cannot beat the packing it was given.
+ * enters when the duals make it worth more than one bin (its reduced cost is negative). Such
+ * columns are first looked for greedily (each of the {@link #GREEDY_SEEDS} best candidates by
+ * dual value per unit of size starts a bin the others fill in that order); when that finds none,
+ * by a depth-first search for the bin contents of greatest dual value (a knapsack in every
+ * dimension at once, bounded by the fractional knapsack on the sum of the normalised dimensions
+ * and, where that does not end a branch, on each dimension alone), which may spend
+ * {@link #PRICE_NODES} nodes. The bins of the packing in hand are the first columns. Once the
+ * relaxation is solved, the columns it uses a whole number of times are fixed as bins (or, when
+ * none is, the one it uses most), their items leave the model, and the relaxation is solved again
+ * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
+ * relaxation's value for the rest, rounded up, cannot beat the best packing so far. Up to
+ * {@link #MAX_DIVES} dives run, each with its own perturbation of the right-hand side and all
+ * columns met so far, until one reaches the first relaxation's value rounded up.
  *
- * <p>Effort is counted in steps: one per simplex pivot and basis row it updates, per column
- * priced and per node of the column search; the dive stops at its allowance. Ties are broken by
+ * <p>Effort is counted in steps, one per inner-loop operation: per basis entry a pivot or a
+ * fresh inversion updates, per column entry priced, per node and bound term of the column search.
+ * When the allowance runs out, the relaxation in hand is rounded (its columns, most used first,
+ * while their items are all left) and the rest is placed first fit. Ties are broken by
  * index; the right-hand side is perturbed by tiny amounts from a {@link SplittableRandom} with a
  * fixed seed, against the cycling of degenerate pivots. Same input, same packing. A heuristic: it
  * never claims that a packing does not exist.
@@ -41,11 +49,12 @@ final class ColumnDive {
   static final int MAX_ITEMS = 5_000;
 
   /**
-   * The dive's allowance per step of the packer's budget. Its steps are small units (one basis
-   * row updated, one column priced, one search node), so the default budget lets it spend
-   * 500 million of them: a few seconds on 500 distinct items, far less on fewer.
+   * The dive's allowance per step of the packer's budget. Its steps are inner-loop operations
+   * (one basis entry updated, one column entry priced, one node or bound term of the column
+   * search), far cheaper than a step of the local search, so the default budget lets it spend
+   * 5 billion of them: about 2 to 6 seconds on 500 distinct items, far less on fewer.
    */
-  static final long STEPS_PER_BUDGET_STEP = 250;
+  static final long STEPS_PER_BUDGET_STEP = 2_500;
 
   /** Dives at most, each from all items with its own perturbation. */
   static final int MAX_DIVES = 8;
@@ -516,12 +525,13 @@ final class ColumnDive {
           for (int i = 0; i < r.length; i++) {
             rc -= y[r[i]] * mult[i];
           }
+          steps += 1 + r.length;
           if (rc < bestRc) {
             bestRc = rc;
             enter = j;
           }
         }
-        steps += cols.size();
+        steps += m;
         for (int r = 0; r < m; r++) {
           // A surplus enters when its dual is negative (over-covering a row pays).
           if (y[r] < bestRc && !surplusIn[r]) {
@@ -579,6 +589,7 @@ final class ColumnDive {
           for (int i = 0; i < m; i++) {
             y[i] += row[i];
           }
+          steps += m;
         }
       }
       steps += m;
@@ -591,6 +602,7 @@ final class ColumnDive {
         for (int r = 0; r < m; r++) {
           alpha[r] = -binv[r][row];
         }
+        steps += m;
         return;
       }
       int[] rs = colRows.get(enter);
@@ -603,6 +615,7 @@ final class ColumnDive {
         }
         alpha[r] = s;
       }
+      steps += (long) m * rs.length;
     }
 
     private void pivot(int enter, int leave, double[] alpha, double theta) {
@@ -624,8 +637,9 @@ final class ColumnDive {
         for (int i = 0; i < m; i++) {
           row[i] -= f * prow[i];
         }
+        steps += m;
       }
-      steps += m;
+      steps += 3L * m;
       int out = basis[leave];
       if (out >= 0) {
         basic.set(out, false);
@@ -683,10 +697,11 @@ final class ColumnDive {
             for (int i = c; i < 2 * m; i++) {
               a[r][i] -= f * a[c][i];
             }
+            steps += 2L * m - c;
           }
         }
       }
-      steps += (long) m * m;
+      steps += 3L * m * m;
       for (int r = 0; r < m; r++) {
         System.arraycopy(a[r], m, binv[r], 0, m);
       }
@@ -768,7 +783,7 @@ final class ColumnDive {
       if (found.isEmpty()) {
         search(0, 0);
       }
-      steps += nodes + boundWork / 8;
+      steps += nodes + boundWork;
       return found;
     }
 
@@ -788,6 +803,7 @@ final class ColumnDive {
       }
       double add = 0;
       for (int j = i; j < cand.length; j++) {
+        boundWork++;
         int r = cand[j];
         double s = norm[typeOfRow[r]];
         int avail = left[typeOfRow[r]];
