@@ -459,6 +459,7 @@ final class ColumnDive {
       }
       for (Column c : pool) {
         Column clipped = clip(c, left);
+        steps += 1 + c.type.length;
         if (clipped != null) {
           add(clipped);
         }
@@ -745,14 +746,41 @@ final class ColumnDive {
         int cmp = Double.compare(ratio(q), ratio(p));
         return cmp != 0 ? cmp : Integer.compare(p, q);
       });
+      steps += m + sortCost(c);
       cand = new int[c];
       candVal = new double[c];
       for (int i = 0; i < c; i++) {
         cand[i] = order[i];
         candVal[i] = y[order[i]];
       }
+      room = cap.clone();
+      pick = new int[c];
+      pickMult = new int[c];
+      depth = 0;
+      nodes = 0;
+      found = new ArrayList<>();
+      foundVal = new ArrayList<>();
+      threshold = 1 + 1e-7;
+      boundWork = 0;
+      greedy();
+      if (found.isEmpty()) {
+        orderByDimension();
+        search(0, 0);
+      }
+      steps += nodes + boundWork;
+      return found;
+    }
+
+    private static long sortCost(int c) {
+      return (long) c * (64 - Long.numberOfLeadingZeros(c + 1L));
+    }
+
+    /** The candidates of each dimension in the order of dual value per unit of that dimension. */
+    private void orderByDimension() {
+      int c = cand.length;
       byDim = new int[d][];
       for (int k = 0; k < d; k++) {
+        steps += sortCost(c);
         final int dim = k;
         Integer[] o = new Integer[c];
         for (int i = 0; i < c; i++) {
@@ -770,21 +798,6 @@ final class ColumnDive {
           byDim[k][i] = o[i];
         }
       }
-      room = cap.clone();
-      pick = new int[c];
-      pickMult = new int[c];
-      depth = 0;
-      nodes = 0;
-      found = new ArrayList<>();
-      foundVal = new ArrayList<>();
-      threshold = 1 + 1e-7;
-      boundWork = 0;
-      greedy();
-      if (found.isEmpty()) {
-        search(0, 0);
-      }
-      steps += nodes + boundWork;
-      return found;
     }
 
     private double ratio(int r) {
@@ -932,6 +945,7 @@ final class ColumnDive {
     }
 
     private void record(double v) {
+      steps += 8 + sortCost(depth) + found.size();
       int[] type = new int[depth];
       int[] mult = new int[depth];
       Integer[] ord = new Integer[depth];
