@@ -93,7 +93,9 @@ final class ColumnDive {
   /** The relaxation's value over all items, once solved (a bound unless pricing was cut short). */
   private double rootValue = -1;
   private final long allowance;
+  private final long seed;
   private long steps;
+  private Progress progress = Progress.NONE;
 
   /** A bin's content: distinct types in increasing order and how many of each. */
   record Column(int[] type, int[] mult) {
@@ -114,6 +116,7 @@ final class ColumnDive {
     this.w = w;
     this.types = types;
     this.allowance = allowance;
+    this.seed = seed;
     this.random = new SplittableRandom(seed);
     this.norm = new double[types];
     for (int t = 0; t < types; t++) {
@@ -138,10 +141,21 @@ final class ColumnDive {
    * @param inHand the packing in hand (bin of each item), whose bins are the first columns
    * @param allowance steps the dive may spend
    * @param seed seed of the perturbation
+   * @param progress told the steps spent of the allowance after each relaxation solved, and the
+   *     whole allowance when the dive ends
    */
   static Result dive(int d, long[] cap, long[] w, int[] count, int[][] members, int[] typeOf,
-      int[] inHand, long allowance, long seed) {
+      int[] inHand, long allowance, long seed, Progress progress) {
     ColumnDive cd = new ColumnDive(d, cap, w, count.length, allowance, seed);
+    cd.progress = progress;
+    try {
+      return cd.dive(members, typeOf, inHand, count);
+    } finally {
+      progress.update(Progress.Phase.DIVE, allowance, allowance);
+    }
+  }
+
+  private Result dive(int[][] members, int[] typeOf, int[] inHand, int[] count) {
     int n = typeOf.length;
     int toBeat = 0;
     for (int b : inHand) {
@@ -157,25 +171,25 @@ final class ColumnDive {
     }
     for (Map<Integer, Integer> c : contents) {
       if (!c.isEmpty()) {
-        cd.remember(columnOf(c));
+        remember(columnOf(c));
       }
     }
     // Dives differ by the perturbation alone; the columns met carry over from one to the next.
     List<Column> bins = null;
     int target = toBeat;
-    for (int attempt = 0; attempt < MAX_DIVES && cd.steps < allowance; attempt++) {
-      cd.random = new SplittableRandom(seed + attempt);
-      List<Column> found = cd.run(count.clone(), target);
+    for (int attempt = 0; attempt < MAX_DIVES && steps < allowance; attempt++) {
+      random = new SplittableRandom(seed + attempt);
+      List<Column> found = run(count.clone(), target);
       if (found != null) {
         bins = found;
         target = found.size();
       }
-      if (cd.rootValue >= 0 && Math.ceil(cd.rootValue - ROUND_OFF) >= target) {
+      if (rootValue >= 0 && Math.ceil(rootValue - ROUND_OFF) >= target) {
         break;
       }
     }
     if (bins == null) {
-      return new Result(null, cd.steps);
+      return new Result(null, steps);
     }
     int[] binOf = new int[n];
     Arrays.fill(binOf, -1);
@@ -194,7 +208,7 @@ final class ColumnDive {
         throw new IllegalStateException("the dive left an item without a bin");
       }
     }
-    return new Result(binOf, cd.steps);
+    return new Result(binOf, steps);
   }
 
   /** The bins of the dive, or null when it gives up. */
@@ -211,6 +225,7 @@ final class ColumnDive {
         return finish(lp, left, fixed, toBeat);
       }
       double z = lp.objective();
+      progress.update(Progress.Phase.DIVE, Math.min(steps, allowance), allowance);
       if (fixed.isEmpty() && rootValue < 0) {
         rootValue = z;
       }

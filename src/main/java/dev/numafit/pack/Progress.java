@@ -15,7 +15,9 @@ public interface Progress {
     /** The failure-headroom check: {@code done} of {@code total} sets of failed hosts checked. */
     FAILURES("failure sets checked"),
     /** Exact mode's search: {@code done} nodes of the search tree visited of the node limit. */
-    EXACT("exact search, nodes searched");
+    EXACT("exact search, nodes searched"),
+    /** The packer's dive over the linear relaxation: {@code done} steps of its allowance. */
+    DIVE("packing, relaxation dive, steps");
 
     private final String words;
 

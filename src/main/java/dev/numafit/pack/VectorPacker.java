@@ -85,11 +85,19 @@ public final class VectorPacker {
    *     or a row's length differs from the capacity's
    */
   public Packing pack(long[][] items, long[] capacity) {
+    return pack(items, capacity, Progress.NONE);
+  }
+
+  /**
+   * Packs the items, telling {@code progress} how far the dive over the linear relaxation (the
+   * step that can take seconds) has come; the packing does not depend on the listener.
+   */
+  public Packing pack(long[][] items, long[] capacity, Progress progress) {
     Instance in = Instance.of(items, capacity);
     if (in.n == 0) {
       return new Packing(0, new int[0], 0, 0);
     }
-    Search s = new Search(in, stepBudget);
+    Search s = new Search(in, stepBudget, progress);
     return s.run(LowerBound.of(items, capacity));
   }
 
@@ -239,11 +247,13 @@ public final class VectorPacker {
   static final class Search {
     private final Instance in;
     private final long budget;
+    private final Progress progress;
     private long steps;
 
-    Search(Instance in, long budget) {
+    Search(Instance in, long budget, Progress progress) {
       this.in = in;
       this.budget = budget;
+      this.progress = progress;
     }
 
     private static final long MBS_SHALLOW = 1_000;
@@ -300,7 +310,7 @@ public final class VectorPacker {
         // from what it found.
         ColumnDive.Result r = ColumnDive.dive(in.d, in.cap, in.w, in.count, in.members,
             in.typeOfItem, best, saturatedTimes(budget, ColumnDive.STEPS_PER_BUDGET_STEP),
-            DIVE_SEED);
+            DIVE_SEED, progress);
         steps += r.steps();
         if (r.binOf() != null) {
           best = r.binOf();

@@ -267,7 +267,7 @@ public final class Planner {
       }
       lowerBound = Math.min(bound, workers);
     } else {
-      Packing packing = packer.pack(items, capacity);
+      Packing packing = packer.pack(items, capacity, progress);
       if (exact.isPresent()) {
         ExactPacker.Result r = exact.get().improve(items, capacity, packing, progress);
         packing = r.packing();

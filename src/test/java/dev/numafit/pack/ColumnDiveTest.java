@@ -6,7 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
 import net.jqwik.api.ForAll;
@@ -41,6 +43,26 @@ class ColumnDiveTest {
     Packing p = new VectorPacker().pack(b.items(), b.capacity());
     assertTrue(BenchInstance.feasible(p, b.items(), b.capacity()));
     assertEquals(optimum, p.bins());
+  }
+
+  @Test
+  void pack_reportsDiveProgress_monotoneAndClosed() throws Exception {
+    BenchInstance b = BenchInstance.load("class7_120_3_3.vbp");
+    List<long[]> seen = new ArrayList<>();
+    Packing p = new VectorPacker().pack(b.items(), b.capacity(),
+        (phase, done, total) -> seen.add(new long[] {phase.ordinal(), done, total}));
+    // The listener changes nothing.
+    assertEquals(new VectorPacker().pack(b.items(), b.capacity()), p);
+    assertTrue(seen.size() >= 2, "updates " + seen.size());
+    long total = VectorPacker.DEFAULT_STEP_BUDGET * ColumnDive.STEPS_PER_BUDGET_STEP;
+    long last = -1;
+    for (long[] u : seen) {
+      assertEquals(Progress.Phase.DIVE.ordinal(), u[0]);
+      assertEquals(total, u[2]);
+      assertTrue(u[1] >= last && u[1] <= total, "done " + u[1] + " after " + last);
+      last = u[1];
+    }
+    assertEquals(total, last, "the last update closes the line");
   }
 
   @Test
@@ -110,7 +132,7 @@ class ColumnDiveTest {
       return new ColumnDive.Result(null, 0);
     }
     return ColumnDive.dive(in.d, in.cap, in.w, in.count, in.members, in.typeOfItem, inHand,
-        allowance, VectorPacker.DIVE_SEED);
+        allowance, VectorPacker.DIVE_SEED, Progress.NONE);
   }
 
   /** Asserts every item has a bin, bins are numbered without gaps and none is over capacity. */
