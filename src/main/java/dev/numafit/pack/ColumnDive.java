@@ -28,7 +28,8 @@ import java.util.TreeMap;
  * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
  * relaxation's value for the rest, rounded up, cannot beat the best packing so far. Up to
  * {@link #MAX_DIVES} dives run, each with its own perturbation of the right-hand side and all
- * columns met so far, until one reaches the first relaxation's value rounded up.
+ * columns met so far, until one reaches the first relaxation's value rounded up (a lower bound
+ * only when the column search was never cut short; otherwise just where the dives stop).
  *
  * <p>Effort is counted in steps, one per inner-loop operation: per basis entry a pivot or a
  * fresh inversion updates, per column entry priced, per node and bound term of the column search.
@@ -129,14 +130,13 @@ final class ColumnDive {
   }
 
   /**
-   * Dives for a packing in fewer than {@code toBeat} bins.
+   * Dives for a packing in fewer bins than {@code inHand}.
    *
    * @param d dimensions (every capacity above zero)
    * @param cap capacity per dimension
    * @param w demands per type, flat {@code w[t * d + k]}; every type fits an empty bin
    * @param count items of each type
    * @param members the item indices of each type
-   * @param n items in all
    * @param typeOf the type of each item
    * @param inHand the packing in hand (bin of each item), whose bins are the first columns
    * @param allowance steps the dive may spend
