@@ -5,8 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
-import java.io.InputStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -22,41 +20,9 @@ class ExactModeTest {
 
   @TempDir Path dir;
 
-  /**
-   * class7_40_3_1 (bench/SOURCE.md in the test resources) as 40 one-replica Deployments: the
-   * three dimensions become cpu (whole vCPUs), memory (Gi) and an extended resource, and the
-   * worker is exactly the instance's capacity, 150 of each (no kubelet reserve; maxPods high
-   * enough never to bind).
-   */
+  /** class7_40_3_1 (bench/SOURCE.md in the test resources) as pods; see {@link PublishedAsPods}. */
   private Path publishedInstanceAsManifest() throws IOException {
-    String[] tok;
-    try (InputStream in = getClass().getResourceAsStream("/bench/class7_40_3_1.vbp")) {
-      tok = new String(in.readAllBytes(), StandardCharsets.US_ASCII).trim().split("\\s+");
-    }
-    int d = Integer.parseInt(tok[0]);
-    int m = Integer.parseInt(tok[1 + d]);
-    StringBuilder yaml = new StringBuilder();
-    int p = 2 + d;
-    for (int i = 0; i < m; i++) {
-      long cpu = Long.parseLong(tok[p]);
-      long mem = Long.parseLong(tok[p + 1]);
-      long slots = Long.parseLong(tok[p + 2]);
-      int copies = Integer.parseInt(tok[p + 3]);
-      p += 4;
-      yaml.append("---\napiVersion: apps/v1\nkind: Deployment\nmetadata:\n  name: item-")
-          .append(i).append("\n  namespace: bench\nspec:\n  replicas: ").append(copies)
-          .append("\n  selector:\n    matchLabels:\n      app: item-").append(i)
-          .append("\n  template:\n    metadata:\n      labels:\n        app: item-").append(i)
-          .append("\n    spec:\n      containers:\n        - name: main\n          image: app:1\n")
-          .append("          resources:\n            requests:\n              cpu: \"")
-          .append(cpu).append("\"\n              memory: ").append(mem)
-          .append("Gi\n              example.com/slots: \"").append(slots)
-          .append("\"\n            limits:\n              example.com/slots: \"").append(slots)
-          .append("\"\n");
-    }
-    Path file = dir.resolve("class7_40_3_1.yaml");
-    Files.writeString(file, yaml.toString());
-    return file;
+    return PublishedAsPods.write(dir, "class7_40_3_1.vbp");
   }
 
   private CliRun planExact(Path manifest, String... more) {
