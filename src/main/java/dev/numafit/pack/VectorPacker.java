@@ -9,7 +9,7 @@ import java.util.SplittableRandom;
  * Packs vector items (pods: demand per resource) into as few equal bins (workers) as it can find.
  *
  * <p>The search follows the heuristics that do well on vector bin packing in "Heuristics for
- * vector bin packing" (Panigrahy, Talwar, Uyeda, Wieder, 2011) and the comparison in
+ * vector bin packing" (2011) and the comparison in
  * "Classification and evaluation of the algorithms for vector bin packing" (Computers &amp; OR,
  * 2025): first-fit-decreasing by the largest normalised demand, then other orders (sum of
  * normalised demands, and demands weighted by how loaded each dimension is overall) and best-fit
@@ -529,11 +529,11 @@ public final class VectorPacker {
 
     /**
      * Fills one bin at a time with the subset of the remaining items that leaves the least
-     * normalised slack, the largest remaining item always included: MBS' after Gupta and Ho, "A
-     * new heuristic algorithm for the one-dimensional bin-packing problem" (1999), and Fleszar and
-     * Hindi, "New heuristics for one-dimensional bin-packing" (2002). The subset search per bin is
-     * cut off after a share of the remaining step budget, so it degrades to a greedy fill on large
-     * inputs. Returns null when the budget runs out.
+     * normalised slack, the largest remaining item always included: the minimum-bin-slack
+     * heuristic of "A new heuristic algorithm for the one-dimensional bin-packing problem" (1999)
+     * and its variant in "New heuristics for one-dimensional bin-packing" (2002). The subset
+     * search per bin is cut off after a share of the remaining step budget, so it degrades to a
+     * greedy fill on large inputs. Returns null when the budget runs out.
      */
     private int[] minimumBinSlack(int[] order, double[] typeKeys, int binsToBeat, long perBin) {
       int d = in.d;
