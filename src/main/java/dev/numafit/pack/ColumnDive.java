@@ -28,8 +28,8 @@ import java.util.TreeMap;
  * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
  * relaxation's value for the rest, rounded up, cannot beat the best packing so far. Up to
  * {@link #MAX_DIVES} dives run, each with its own perturbation of the right-hand side and all
- * columns met so far, until one reaches the first relaxation's value rounded up (a lower bound
- * only when the column search was never cut short; otherwise just where the dives stop).
+ * columns met so far, until one reaches the first relaxation's value rounded up, when that value
+ * is a lower bound (no column search for it stopped at its node limit).
  *
  * <p>Effort is counted in steps, one per inner-loop operation: per basis entry a pivot or a
  * fresh inversion updates, per column entry priced, per node and bound term of the column search.
@@ -97,6 +97,8 @@ final class ColumnDive {
   private final long seed;
   private long steps;
   private Progress progress = Progress.NONE;
+  /** Whether {@link #rootValue} is a lower bound (no column search was cut short). */
+  private boolean rootIsBound;
 
   /** A bin's content: distinct types in increasing order and how many of each. */
   record Column(int[] type, int[] mult) {
@@ -184,7 +186,7 @@ final class ColumnDive {
         bins = found;
         target = found.size();
       }
-      if (rootValue >= 0 && Math.ceil(rootValue - ROUND_OFF) >= target) {
+      if (rootValue >= 0 && rootIsBound && Math.ceil(rootValue - ROUND_OFF) >= target) {
         break;
       }
     }
@@ -227,6 +229,7 @@ final class ColumnDive {
       double z = lp.objective();
       progress.update(Progress.Phase.DIVE, Math.min(steps, allowance), allowance);
       if (fixed.isEmpty() && rootValue < 0) {
+        rootIsBound = !lp.cut;
         rootValue = z;
       }
       if (fixed.size() + Math.ceil(z - ROUND_OFF) >= toBeat) {
@@ -434,6 +437,8 @@ final class ColumnDive {
     final Map<Column, Integer> inLp = new HashMap<>();
     final List<Boolean> basic = new ArrayList<>();
     final boolean[] surplusIn;
+    /** Whether a column search stopped at its node limit: the value is then no lower bound. */
+    boolean cut;
     /** Basic variable of each row: a column index, or −(row + 1) for that row's surplus. */
     final int[] basis;
     final double[][] binv;
@@ -781,6 +786,9 @@ final class ColumnDive {
       if (found.isEmpty()) {
         orderByDimension();
         search(0, 0);
+        if (nodes >= PRICE_NODES) {
+          cut = true;
+        }
       }
       steps += nodes + boundWork;
       return found;
