@@ -53,9 +53,10 @@ final class ColumnDive {
    * The dive's allowance per step of the packer's budget. Its steps are inner-loop operations
    * (one basis entry updated, one column entry priced, one node or bound term of the column
    * search), far cheaper than a step of the local search, so the default budget lets it spend
-   * 5 billion of them: about 2 to 6 seconds on 500 distinct items, far less on fewer.
+   * 2 billion of them: at most about 1 to 2.5 seconds on 400 to 500 distinct items, far less on
+   * fewer.
    */
-  static final long STEPS_PER_BUDGET_STEP = 2_500;
+  static final long STEPS_PER_BUDGET_STEP = 1_000;
 
   /** Dives at most, each from all items with its own perturbation. */
   static final int MAX_DIVES = 8;
