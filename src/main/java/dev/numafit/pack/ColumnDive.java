@@ -356,6 +356,18 @@ final class ColumnDive {
     return fixed.size() < toBeat ? fixed : null;
   }
 
+  /** How many items of type t fit in {@code room}, at most {@code limit}. */
+  private int copiesThatFit(int t, long[] room, int limit) {
+    long most = limit;
+    for (int k = 0; k < d; k++) {
+      long wk = w[t * d + k];
+      if (wk > 0) {
+        most = Math.min(most, room[k] / wk);
+      }
+    }
+    return (int) most;
+  }
+
   /** Whether every item of the column is still left. */
   private static boolean whole(Column c, int[] left) {
     for (int i = 0; i < c.type.length; i++) {
@@ -488,14 +500,7 @@ final class ColumnDive {
     }
 
     private int fitAlone(int t) {
-      long most = Long.MAX_VALUE;
-      for (int k = 0; k < d; k++) {
-        long wk = w[t * d + k];
-        if (wk > 0) {
-          most = Math.min(most, cap[k] / wk);
-        }
-      }
-      return (int) Math.min(Integer.MAX_VALUE, Math.max(1, most));
+      return Math.max(1, copiesThatFit(t, cap, Integer.MAX_VALUE));
     }
 
     /** Adds a column (once); returns its index. */
@@ -905,13 +910,7 @@ final class ColumnDive {
           }
           nodes++;
           int t = typeOfRow[cand[j]];
-          int most = left[t];
-          for (int k = 0; k < d; k++) {
-            long wk = w[t * d + k];
-            if (wk > 0) {
-              most = (int) Math.min(most, room[k] / wk);
-            }
-          }
+          int most = copiesThatFit(t, room, left[t]);
           if (most <= 0) {
             continue;
           }
@@ -941,13 +940,7 @@ final class ColumnDive {
         }
         int r = cand[j];
         int t = typeOfRow[r];
-        int most = left[t];
-        for (int k = 0; k < d; k++) {
-          long wk = w[t * d + k];
-          if (wk > 0) {
-            most = (int) Math.min(most, room[k] / wk);
-          }
-        }
+        int most = copiesThatFit(t, room, left[t]);
         for (int q = most; q >= 1; q--) {
           for (int k = 0; k < d; k++) {
             room[k] -= q * w[t * d + k];
