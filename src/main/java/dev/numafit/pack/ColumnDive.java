@@ -20,9 +20,14 @@ import java.util.TreeMap;
  * columns are first looked for greedily (each of the {@link #GREEDY_SEEDS} best candidates by
  * dual value per unit of size starts a bin the others fill in that order); when that finds none,
  * by a depth-first search for the bin contents of greatest dual value (a knapsack in every
- * dimension at once, bounded by the fractional knapsack on the sum of the normalised dimensions
- * and, where that does not end a branch, on each dimension alone), which may spend
- * {@link #PRICE_NODES} nodes. The bins of the packing in hand are the first columns. Once the
+ * dimension at once), which may spend {@link #PRICE_NODES} nodes. Its branches end on three
+ * bounds: by count (no more items fit the room left than the smallest candidates of any one
+ * dimension do, so the largest dual values of that many candidates bound what can still be added;
+ * strong where few items share a bin), then the fractional knapsack on the sum of the normalised
+ * dimensions, then on each dimension alone. The simplex picks the entering column by Devex
+ * pricing (reduced cost squared over a reference weight updated from the pivot row at every
+ * pivot, written here from the published method), which takes fewer pivots than the most
+ * negative reduced cost on these degenerate relaxations. The bins of the packing in hand are the first columns. Once the
  * relaxation is solved, the columns it uses a whole number of times are fixed as bins (or, when
  * none is, the one it uses most), their items leave the model, and the relaxation is solved again
  * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
@@ -32,7 +37,8 @@ import java.util.TreeMap;
  * is a lower bound (no column search for it stopped at its node limit).
  *
  * <p>Effort is counted in steps, one per inner-loop operation: per basis entry a pivot or a
- * fresh inversion updates, per column entry priced, per node and bound term of the column search.
+ * fresh inversion updates, per column entry priced or weighted, per node and bound term of the
+ * column search.
  * When the allowance runs out, the relaxation in hand is rounded (its columns, most used first,
  * while their items are all left) and the rest is placed first fit. Ties are broken by
  * index; the right-hand side is perturbed by tiny amounts from a {@link SplittableRandom} with a
@@ -541,7 +547,9 @@ final class ColumnDive {
           dualsFresh = true;
         }
         int enter = Integer.MIN_VALUE;
-        double bestRc = -EPS;
+        double bestRc = 0;
+        double bestScore = 0;
+        growWeights();
         for (int j = 0; j < cols.size(); j++) {
           if (basic.get(j)) {
             continue;
@@ -553,7 +561,8 @@ final class ColumnDive {
             rc -= y[r[i]] * mult[i];
           }
           steps += 1 + r.length;
-          if (rc < bestRc) {
+          if (rc < -EPS && rc * rc > bestScore * colWeight[j]) {
+            bestScore = rc * rc / colWeight[j];
             bestRc = rc;
             enter = j;
           }
@@ -561,7 +570,8 @@ final class ColumnDive {
         steps += m;
         for (int r = 0; r < m; r++) {
           // A surplus enters when its dual is negative (over-covering a row pays).
-          if (y[r] < bestRc && !surplusIn[r]) {
+          if (!surplusIn[r] && y[r] < -EPS && y[r] * y[r] > bestScore * surplusWeight[r]) {
+            bestScore = y[r] * y[r] / surplusWeight[r];
             bestRc = y[r];
             enter = -(r + 1);
           }
@@ -594,7 +604,11 @@ final class ColumnDive {
           // Cannot happen with positive costs; give up rather than loop.
           return false;
         }
+        int out = basis[leave];
+        double enterWeight = enter >= 0 ? colWeight[enter] : surplusWeight[-enter - 1];
+        double pivotElement = alpha[leave];
         pivot(enter, leave, alpha, bestRatio);
+        updateWeights(enter, out, leave, enterWeight, pivotElement);
         if (pivotsSinceRefactor == 0) {
           dualsFresh = false;
         } else {
@@ -605,6 +619,68 @@ final class ColumnDive {
           }
           steps += m;
         }
+      }
+    }
+
+    /** Reference weights of the pricing (one per column, one per surplus); 1 at the start. */
+    private double[] colWeight = new double[0];
+    private double[] surplusWeight;
+
+    private void growWeights() {
+      if (surplusWeight == null) {
+        surplusWeight = new double[m];
+        Arrays.fill(surplusWeight, 1);
+      }
+      int old = colWeight.length;
+      if (old < cols.size()) {
+        colWeight = Arrays.copyOf(colWeight, Math.max(cols.size(), old * 2));
+        Arrays.fill(colWeight, old, colWeight.length, 1);
+      }
+    }
+
+    /**
+     * Devex update after a pivot: each non-basic weight grows to at least its pivot-row entry
+     * squared times the entering weight; the leaving variable gets the entering weight over the
+     * pivot element squared. Reset to 1 when weights grow too large.
+     */
+    private void updateWeights(int enter, int out, int leave, double enterWeight, double pivot) {
+      double[] prow = binv[leave];
+      double most = 0;
+      for (int j = 0; j < cols.size(); j++) {
+        if (basic.get(j)) {
+          continue;
+        }
+        int[] r = colRows.get(j);
+        int[] mult = cols.get(j).mult;
+        double a = 0;
+        for (int i = 0; i < r.length; i++) {
+          a += prow[r[i]] * mult[i];
+        }
+        steps += 1 + r.length;
+        double cand = a * a * enterWeight;
+        if (cand > colWeight[j]) {
+          colWeight[j] = cand;
+        }
+        most = Math.max(most, colWeight[j]);
+      }
+      for (int r = 0; r < m; r++) {
+        if (!surplusIn[r]) {
+          double cand = prow[r] * prow[r] * enterWeight;
+          if (cand > surplusWeight[r]) {
+            surplusWeight[r] = cand;
+          }
+        }
+      }
+      steps += m;
+      double leaving = Math.max(enterWeight / (pivot * pivot), 1);
+      if (out >= 0) {
+        colWeight[out] = leaving;
+      } else {
+        surplusWeight[-out - 1] = leaving;
+      }
+      if (most > 1e6) {
+        Arrays.fill(colWeight, 1);
+        Arrays.fill(surplusWeight, 1);
       }
     }
 
@@ -804,10 +880,30 @@ final class ColumnDive {
       return (long) c * (64 - Long.numberOfLeadingZeros(c + 1L));
     }
 
-    /** The candidates of each dimension in the order of dual value per unit of that dimension. */
+    /**
+     * The candidates of each dimension by demand in that dimension, smallest first, and in the
+     * order of dual value per unit of that dimension.
+     */
     private void orderByDimension() {
       int c = cand.length;
       byDim = new int[d][];
+      smallest = new int[d][];
+      for (int k = 0; k < d; k++) {
+        steps += sortCost(c);
+        final int dim = k;
+        Integer[] o = new Integer[c];
+        for (int i = 0; i < c; i++) {
+          o[i] = i;
+        }
+        Arrays.sort(o, (p, q) -> {
+          int cmp = Long.compare(w[typeOfRow[cand[p]] * d + dim], w[typeOfRow[cand[q]] * d + dim]);
+          return cmp != 0 ? cmp : Integer.compare(p, q);
+        });
+        smallest[k] = new int[c];
+        for (int i = 0; i < c; i++) {
+          smallest[k][i] = o[i];
+        }
+      }
       for (int k = 0; k < d; k++) {
         steps += sortCost(c);
         final int dim = k;
@@ -839,6 +935,84 @@ final class ColumnDive {
 
     /** Upper bound on what candidates from index i on can add within the room left. */
     private double bound(int i, double need) {
+      double add = countBound(i);
+      if (add <= need) {
+        return add;
+      }
+      return Math.min(add, knapsackBound(i, need));
+    }
+
+    /**
+     * Largest count of items in one bin for which {@link #countBound} is worked out; beyond it
+     * that bound is skipped (it would be weak and slow).
+     */
+    static final int COUNT_BOUND_MAX = 16;
+
+    /** Candidate positions per dimension, smallest demand first (for {@link #countBound}). */
+    private int[][] smallest;
+
+    private final double[] topValues = new double[COUNT_BOUND_MAX + 1];
+
+    /**
+     * Bound by count: no more items fit the room left than the smallest candidates of any one
+     * dimension do, so the largest values of that many candidates from i on (copies counted)
+     * bound what can be added; {@link Double#MAX_VALUE} when the count exceeds {@link
+     * #COUNT_BOUND_MAX}.
+     */
+    private double countBound(int i) {
+      int most = Integer.MAX_VALUE;
+      for (int k = 0; k < d && most > 0; k++) {
+        long roomK = room[k];
+        int fit = 0;
+        for (int j : smallest[k]) {
+          boundWork++;
+          int t = typeOfRow[cand[j]];
+          long wk = w[t * d + k];
+          int avail = left[t];
+          long copies = wk == 0 ? avail : Math.min(avail, roomK / wk);
+          fit += (int) Math.min(copies, COUNT_BOUND_MAX + 1L);
+          roomK -= copies * wk;
+          if (copies < avail || fit > COUNT_BOUND_MAX) {
+            break;
+          }
+        }
+        most = Math.min(most, fit);
+      }
+      if (most > COUNT_BOUND_MAX) {
+        return Double.MAX_VALUE;
+      }
+      // The `most` largest values from i on, copies counted, in a small array sorted downwards.
+      double[] top = topValues;
+      int filled = 0;
+      for (int j = i; j < cand.length && most > 0; j++) {
+        boundWork++;
+        double v = candVal[j];
+        int copies = Math.min(left[typeOfRow[cand[j]]], most);
+        for (int q = 0; q < copies; q++) {
+          int at;
+          if (filled < most) {
+            at = filled++;
+          } else if (v > top[most - 1]) {
+            at = most - 1;
+          } else {
+            break;
+          }
+          while (at > 0 && top[at - 1] < v) {
+            top[at] = top[at - 1];
+            at--;
+          }
+          top[at] = v;
+        }
+      }
+      double add = 0;
+      for (int q = 0; q < filled; q++) {
+        add += top[q];
+      }
+      return add;
+    }
+
+    /** The fractional knapsack bounds: over the summed room, then each dimension alone. */
+    private double knapsackBound(int i, double need) {
       double roomSum = 0;
       for (int k = 0; k < d; k++) {
         roomSum += (double) room[k] / cap[k];
