@@ -31,7 +31,9 @@ import java.util.TreeMap;
  * relaxation is solved, the columns it uses a whole number of times are fixed as bins (or, when
  * none is, the one it uses most), their items leave the model, and the relaxation is solved again
  * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
- * relaxation's value for the rest, rounded up, cannot beat the best packing so far. Up to
+ * relaxation's value for the rest, rounded up, cannot beat the best packing so far, when that
+ * relaxation is proven solved (its last column search was not cut short at its node limit;
+ * otherwise the value may lie above what the items left need). Up to
  * {@link #MAX_DIVES} dives run, each with its own perturbation of the right-hand side and all
  * columns met so far, until one reaches the first relaxation's value rounded up, when that value
  * is a lower bound (no column search for it stopped at its node limit).
@@ -239,7 +241,9 @@ final class ColumnDive {
         rootIsBound = !lp.cut;
         rootValue = z;
       }
-      if (fixed.size() + Math.ceil(z - ROUND_OFF) >= toBeat) {
+      // Only a relaxation proven solved bounds the bins still needed; one whose column search
+      // was cut short may lie above what the items left need, so the dive goes on.
+      if (!lp.cut && fixed.size() + Math.ceil(z - ROUND_OFF) >= toBeat) {
         return null;
       }
       // Fix the columns used a whole number of times; when none is, the one used most.
@@ -456,7 +460,10 @@ final class ColumnDive {
     final Map<Column, Integer> inLp = new HashMap<>();
     final List<Boolean> basic = new ArrayList<>();
     final boolean[] surplusIn;
-    /** Whether a column search stopped at its node limit: the value is then no lower bound. */
+    /**
+     * Whether the last column search stopped at its node limit: the relaxation is then not proven
+     * solved, and its value is no lower bound.
+     */
     boolean cut;
     /** Basic variable of each row: a column index, or −(row + 1) for that row's surplus. */
     final int[] basis;
@@ -868,9 +875,7 @@ final class ColumnDive {
       if (found.isEmpty()) {
         orderByDimension();
         search(0, 0);
-        if (nodes >= PRICE_NODES) {
-          cut = true;
-        }
+        cut = nodes >= PRICE_NODES;
       }
       steps += nodes + boundWork;
       return found;
