@@ -59,10 +59,10 @@ final class ColumnDive {
 
   /**
    * The dive's allowance per step of the packer's budget. Its steps are inner-loop operations
-   * (one basis entry updated, one column entry priced, one node or bound term of the column
-   * search), far cheaper than a step of the local search, so the default budget lets it spend
-   * 2 billion of them: at most about 1 to 2.5 seconds on 400 to 500 distinct items, far less on
-   * fewer.
+   * (one basis entry updated, one column entry priced or weighted, one node or bound term of the
+   * column search), far cheaper than a step of the local search, so the default budget lets it
+   * spend 2 billion of them: at most about 1.5 to 4 seconds on 400 to 500 distinct items (a bound
+   * term costs more time than a basis entry), far less on fewer.
    */
   static final long STEPS_PER_BUDGET_STEP = 1_000;
 
