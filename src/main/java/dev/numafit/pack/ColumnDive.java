@@ -828,6 +828,10 @@ final class ColumnDive {
 
     private int[] cand;
     private double[] candVal;
+    /** Per candidate: normalised size, items left, demand per dimension ({@code [k * c + j]}). */
+    private double[] candNorm;
+    private int[] candLeft;
+    private long[] candW;
     private long[] room;
     private int[] pick;
     private int[] pickMult;
@@ -858,9 +862,18 @@ final class ColumnDive {
       steps += m + sortCost(c);
       cand = new int[c];
       candVal = new double[c];
+      candNorm = new double[c];
+      candLeft = new int[c];
+      candW = new long[d * c];
       for (int i = 0; i < c; i++) {
         cand[i] = order[i];
         candVal[i] = y[order[i]];
+        int t = typeOfRow[order[i]];
+        candNorm[i] = norm[t];
+        candLeft[i] = left[t];
+        for (int k = 0; k < d; k++) {
+          candW[k * c + i] = w[t * d + k];
+        }
       }
       room = cap.clone();
       pick = new int[c];
@@ -969,11 +982,11 @@ final class ColumnDive {
       for (int k = 0; k < d && most > 0; k++) {
         long roomK = room[k];
         int fit = 0;
+        int base = k * cand.length;
         for (int j : smallest[k]) {
           boundWork++;
-          int t = typeOfRow[cand[j]];
-          long wk = w[t * d + k];
-          int avail = left[t];
+          long wk = candW[base + j];
+          int avail = candLeft[j];
           long copies = wk == 0 ? avail : Math.min(avail, roomK / wk);
           fit += (int) Math.min(copies, COUNT_BOUND_MAX + 1L);
           roomK -= copies * wk;
@@ -992,7 +1005,7 @@ final class ColumnDive {
       for (int j = i; j < cand.length && most > 0; j++) {
         boundWork++;
         double v = candVal[j];
-        int copies = Math.min(left[typeOfRow[cand[j]]], most);
+        int copies = Math.min(candLeft[j], most);
         for (int q = 0; q < copies; q++) {
           int at;
           if (filled < most) {
@@ -1025,9 +1038,8 @@ final class ColumnDive {
       double add = 0;
       for (int j = i; j < cand.length; j++) {
         boundWork++;
-        int r = cand[j];
-        double s = norm[typeOfRow[r]];
-        int avail = left[typeOfRow[r]];
+        double s = candNorm[j];
+        int avail = candLeft[j];
         if (s <= 0) {
           add += candVal[j] * avail;
           continue;
@@ -1046,14 +1058,14 @@ final class ColumnDive {
       for (int k = 0; k < d; k++) {
         double roomK = room[k];
         double addK = 0;
+        int base = k * cand.length;
         for (int j : byDim[k]) {
           boundWork++;
           if (j < i) {
             continue;
           }
-          int t = typeOfRow[cand[j]];
-          long wk = w[t * d + k];
-          int avail = left[t];
+          long wk = candW[base + j];
+          int avail = candLeft[j];
           if (wk == 0) {
             addK += candVal[j] * avail;
             continue;
