@@ -27,16 +27,16 @@ import java.util.TreeMap;
  * dimensions, then on each dimension alone. The simplex picks the entering column by Devex
  * pricing (reduced cost squared over a reference weight updated from the pivot row at every
  * pivot, written here from the published method), which takes fewer pivots than the most
- * negative reduced cost on these degenerate relaxations. The bins of the packing in hand are the first columns. Once the
- * relaxation is solved, the columns it uses a whole number of times are fixed as bins (or, when
- * none is, the one it uses most), their items leave the model, and the relaxation is solved again
- * for the items left, until none is left. A dive gives up as soon as the bins fixed plus the
- * relaxation's value for the rest, rounded up, cannot beat the best packing so far, when that
- * relaxation is proven solved (its last column search was not cut short at its node limit;
- * otherwise the value may lie above what the items left need). Up to
- * {@link #MAX_DIVES} dives run, each with its own perturbation of the right-hand side and all
- * columns met so far, until one reaches the first relaxation's value rounded up, when that value
- * is a lower bound (no column search for it stopped at its node limit).
+ * negative reduced cost on these degenerate relaxations. The bins of the packing in hand are the
+ * first columns. Once the relaxation is solved, the columns it uses a whole number of times are
+ * fixed as bins (or, when none is, the one it uses most), their items leave the model, and the
+ * relaxation is solved again for the items left, until none is left. A dive gives up as soon as the
+ * bins fixed plus the relaxation's value for the rest, rounded up, cannot beat the best packing so
+ * far, when that relaxation is proven solved (its last column search was not cut short at its node
+ * limit; otherwise the value may lie above what the items left need). Up to {@link #MAX_DIVES}
+ * dives run, each with its own perturbation of the right-hand side and all columns met so far,
+ * until one reaches the first relaxation's value rounded up, when that value is a lower bound (its
+ * last column search was not cut short).
  *
  * <p>Effort is counted in steps, one per inner-loop operation: per basis entry a pivot or a
  * fresh inversion updates, per column entry priced or weighted, per node and bound term of the
