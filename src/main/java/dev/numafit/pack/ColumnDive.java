@@ -2,6 +2,7 @@ package dev.numafit.pack;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -493,6 +494,8 @@ final class ColumnDive {
       this.xb = new double[m];
       this.y = new double[m];
       this.surplusIn = new boolean[m];
+      this.surplusWeight = new double[m];
+      Arrays.fill(surplusWeight, 1);
       // Start: each type alone, as many of it as fit one bin.
       for (int r = 0; r < m; r++) {
         int t = rows[r];
@@ -631,13 +634,9 @@ final class ColumnDive {
 
     /** Reference weights of the pricing (one per column, one per surplus); 1 at the start. */
     private double[] colWeight = new double[0];
-    private double[] surplusWeight;
+    private final double[] surplusWeight;
 
     private void growWeights() {
-      if (surplusWeight == null) {
-        surplusWeight = new double[m];
-        Arrays.fill(surplusWeight, 1);
-      }
       int old = colWeight.length;
       if (old < cols.size()) {
         colWeight = Arrays.copyOf(colWeight, Math.max(cols.size(), old * 2));
@@ -903,44 +902,38 @@ final class ColumnDive {
      * order of dual value per unit of that dimension.
      */
     private void orderByDimension() {
-      int c = cand.length;
       byDim = new int[d][];
       smallest = new int[d][];
       for (int k = 0; k < d; k++) {
-        steps += sortCost(c);
         final int dim = k;
-        Integer[] o = new Integer[c];
-        for (int i = 0; i < c; i++) {
-          o[i] = i;
-        }
-        Arrays.sort(o, (p, q) -> {
-          int cmp = Long.compare(w[typeOfRow[cand[p]] * d + dim], w[typeOfRow[cand[q]] * d + dim]);
-          return cmp != 0 ? cmp : Integer.compare(p, q);
-        });
-        smallest[k] = new int[c];
-        for (int i = 0; i < c; i++) {
-          smallest[k][i] = o[i];
-        }
+        smallest[k] = sortedCandidates((p, q) ->
+            Long.compare(w[typeOfRow[cand[p]] * d + dim], w[typeOfRow[cand[q]] * d + dim]));
       }
       for (int k = 0; k < d; k++) {
-        steps += sortCost(c);
         final int dim = k;
-        Integer[] o = new Integer[c];
-        for (int i = 0; i < c; i++) {
-          o[i] = i;
-        }
-        Arrays.sort(o, (p, q) -> {
+        byDim[k] = sortedCandidates((p, q) -> {
           long wp = w[typeOfRow[cand[p]] * d + dim];
           long wq = w[typeOfRow[cand[q]] * d + dim];
           // candVal[p] / wp against candVal[q] / wq, zero demand first.
-          int cmp = Double.compare(candVal[q] * wp, candVal[p] * wq);
-          return cmp != 0 ? cmp : Integer.compare(p, q);
+          return Double.compare(candVal[q] * wp, candVal[p] * wq);
         });
-        byDim[k] = new int[c];
-        for (int i = 0; i < c; i++) {
-          byDim[k][i] = o[i];
-        }
       }
+    }
+
+    /** Candidate positions sorted by {@code order}, ties by position; counts the sort's steps. */
+    private int[] sortedCandidates(Comparator<Integer> order) {
+      int c = cand.length;
+      steps += sortCost(c);
+      Integer[] o = new Integer[c];
+      for (int i = 0; i < c; i++) {
+        o[i] = i;
+      }
+      Arrays.sort(o, order.thenComparing(Comparator.naturalOrder()));
+      int[] sorted = new int[c];
+      for (int i = 0; i < c; i++) {
+        sorted[i] = o[i];
+      }
+      return sorted;
     }
 
     private double ratio(int r) {
